@@ -1,0 +1,38 @@
+// One role → action table, used by the server's middleware and by the client to show or hide actions.
+export const roles = ["field", "logistics", "geodesist", "reviewer", "admin"] as const;
+export type Role = (typeof roles)[number];
+
+export const actions = [
+  "campaign.read",
+  "site.write",
+  "site.delete",
+  "member.read",
+  "member.manage",
+  "invite.create",
+] as const;
+export type Action = (typeof actions)[number];
+
+const table: Record<Action, readonly Role[]> = {
+  "campaign.read": roles,
+  "site.write": ["field", "logistics", "geodesist", "admin"],
+  "site.delete": ["logistics", "geodesist", "admin"],
+  "member.read": ["admin"],
+  "member.manage": ["admin"],
+  "invite.create": ["admin"],
+};
+
+export function can(role: Role | undefined | null, action: Action): boolean {
+  return role != null && table[action].includes(role);
+}
+
+export function actionsOf(role: Role): Action[] {
+  return actions.filter((action) => can(role, action));
+}
+
+export const roleLabels: Record<Role, string> = {
+  field: "Field crew",
+  logistics: "Logistics",
+  geodesist: "Geodesist",
+  reviewer: "Reviewer",
+  admin: "Administrator",
+};

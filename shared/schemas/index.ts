@@ -1,0 +1,5 @@
+export * from "./limits";
+export * from "./errors";
+export * from "./auth";
+export * from "./campaigns";
+export * from "./sites";
