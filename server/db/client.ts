@@ -1,0 +1,34 @@
+import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
+import { migrate } from "drizzle-orm/node-postgres/migrator";
+import pg from "pg";
+import { fileURLToPath } from "node:url";
+import * as schema from "./schema";
+
+export type Db = NodePgDatabase<typeof schema>;
+export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
+export type Queryable = Db | Tx;
+
+export interface Database {
+  db: Db;
+  pool: pg.Pool;
+  close: () => Promise<void>;
+}
+
+export function connect(url: string, max = 10): Database {
+  const pool = new pg.Pool({ connectionString: url, max, idleTimeoutMillis: 30_000 });
+  // A dropped idle connection must not crash the process; the pool replaces it.
+  pool.on("error", () => undefined);
+  const db = drizzle(pool, { schema });
+  return { db, pool, close: () => pool.end() };
+}
+
+export const migrationsFolder = fileURLToPath(new URL("../../drizzle", import.meta.url));
+
+export async function applyMigrations(url: string): Promise<void> {
+  const database = connect(url, 1);
+  try {
+    await migrate(database.db, { migrationsFolder });
+  } finally {
+    await database.close();
+  }
+}
