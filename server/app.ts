@@ -1,0 +1,94 @@
+// createApp(): middleware, routers, static PWA, and the error handler registered last.
+import "./express-augment";
+import cookieParser from "cookie-parser";
+import express, { type Express, type RequestHandler } from "express";
+import helmet from "helmet";
+import { existsSync } from "node:fs";
+import { join, resolve } from "node:path";
+import type { Logger } from "pino";
+import { pinoHttp } from "pino-http";
+import { limits } from "../shared/schemas/limits";
+import type { Config } from "./config";
+import { publicUrl } from "./config";
+import type { Db } from "./db/client";
+import { authenticate } from "./middleware/authenticate";
+import { apiNotFound, errorHandler } from "./middleware/error-handler";
+import { authRouter, type AuthRouterDeps } from "./routes/auth/auth.router";
+import { campaignsRouter } from "./routes/campaigns/campaigns.router";
+import { healthRouter } from "./routes/health/health.router";
+import { invitesRouter } from "./routes/invites/invites.router";
+import { createTokenService } from "./services/tokens";
+
+export interface AppDeps {
+  config: Config;
+  db: Db;
+  log: Logger;
+  onMailQueued?: () => void;
+  /** Where links in e-mails point; known only after listen() when the port is chosen by the OS. */
+  linkBase?: () => string;
+}
+
+const contentSecurityPolicy = {
+  useDefaults: true,
+  directives: {
+    "default-src": ["'self'"],
+    "script-src": ["'self'"],
+    "style-src": ["'self'", "'unsafe-inline'"],
+    "img-src": ["'self'", "data:", "blob:"],
+    "worker-src": ["'self'", "blob:"],
+    "connect-src": ["'self'"],
+    // Field tablets may reach a server by its LAN address over plain HTTP.
+    "upgrade-insecure-requests": null,
+  },
+};
+
+function staticPwa(dir: string): RequestHandler[] {
+  const root = resolve(dir);
+  const noCache = (path: string) => /(index\.html|sw\.js|registerSW\.js|manifest\.webmanifest)$/.test(path);
+  const serve = express.static(root, {
+    index: false,
+    setHeaders: (res, path) => {
+      res.setHeader("Cache-Control", noCache(path) ? "no-cache" : "public, max-age=31536000, immutable");
+    },
+  });
+  const fallback: RequestHandler = (req, res, next) => {
+    if (req.method !== "GET" || req.path.startsWith("/api/")) return next();
+    res.setHeader("Cache-Control", "no-cache");
+    res.sendFile(join(root, "index.html"));
+  };
+  return [serve, fallback];
+}
+
+export function createApp({ config, db, log, onMailQueued = () => undefined, linkBase }: AppDeps): Express {
+  const app = express();
+  app.disable("x-powered-by");
+  app.set("trust proxy", config.TRUST_PROXY === "true");
+  app.use(helmet({ contentSecurityPolicy, crossOriginEmbedderPolicy: false }));
+  app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === "/api/health" } }));
+
+  const tokens = createTokenService(config.JWT_SECRET, config.ACCESS_TOKEN_TTL_S);
+  const authDeps: AuthRouterDeps = {
+    db,
+    tokens,
+    refreshTtlS: config.REFRESH_TOKEN_TTL_S,
+    secureCookies: publicUrl(config).startsWith("https:"),
+  };
+
+  const api = express.Router();
+  api.use(express.json({ limit: limits.jsonBodyBytes, strict: true }));
+  api.use(cookieParser());
+  api.use((_req, res, next) => {
+    res.setHeader("Cache-Control", "no-store");
+    next();
+  });
+  api.use("/health", healthRouter(db, config.DEMO === "true"));
+  api.use("/auth", authRouter(authDeps));
+  api.use("/invites", invitesRouter(authDeps));
+  api.use("/campaigns", authenticate(tokens), campaignsRouter({ db, linkBase: linkBase ?? (() => publicUrl(config)), onMailQueued }));
+  api.use(apiNotFound);
+  app.use("/api", api);
+
+  if (config.STATIC_DIR && existsSync(join(config.STATIC_DIR, "index.html"))) app.use(staticPwa(config.STATIC_DIR));
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,16 @@
+import type { Queryable } from "../client";
+import { auditEvents } from "../schema";
+
+export interface AuditEntry {
+  campaignId: string | null;
+  userId: string | null;
+  action: string;
+  entity: string;
+  entityId: string;
+  before?: unknown;
+  after?: unknown;
+}
+
+export async function recordAudit(q: Queryable, entry: AuditEntry): Promise<void> {
+  await q.insert(auditEvents).values({ ...entry, before: entry.before ?? null, after: entry.after ?? null });
+}

@@ -1,0 +1,40 @@
+import { Router } from "express";
+import { inviteInput } from "../../../shared/schemas/auth";
+import type { Db } from "../../db/client";
+import { listCampaignsOfUser, listMembers } from "../../db/repositories/campaigns";
+import { requireAuth } from "../../middleware/authenticate";
+import { campaignMember, requireAction, scope } from "../../middleware/authorize";
+import { parseInput } from "../../middleware/validate";
+import { createInvite } from "../../services/invites.service";
+import { sitesRouter } from "../sites/sites.router";
+
+export interface CampaignsRouterDeps {
+  db: Db;
+  linkBase: () => string;
+  onMailQueued: () => void;
+}
+
+/** Mounted under /api/campaigns after authentication. */
+export function campaignsRouter({ db, linkBase, onMailQueued }: CampaignsRouterDeps): Router {
+  const router = Router();
+
+  router.get("/", async (req, res) => {
+    res.json({ campaigns: await listCampaignsOfUser(db, requireAuth(req).userId) });
+  });
+
+  router.use("/:campaignId", campaignMember(db));
+
+  router.get("/:campaignId/members", requireAction("member.read"), async (req, res) => {
+    res.json({ members: await listMembers(db, scope(req).campaignId) });
+  });
+
+  router.post("/:campaignId/invites", requireAction("invite.create"), async (req, res) => {
+    const input = parseInput(inviteInput, req.body);
+    const invite = await createInvite(db, scope(req), input, linkBase());
+    onMailQueued();
+    res.status(201).json({ invite });
+  });
+
+  router.use("/:campaignId/sites", sitesRouter(db));
+  return router;
+}

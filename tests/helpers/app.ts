@@ -1,0 +1,40 @@
+// Integration-test context: createApp() on a fresh, migrated database with the demo accounts.
+import { pino } from "pino";
+import request from "supertest";
+import type { Express } from "express";
+import { createApp } from "../../server/app";
+import type { Config } from "../../server/config";
+import { requestHeader } from "../../shared/schemas/auth";
+import { demoPassword, seedDemo } from "../../server/seed/demo";
+import { testConfig } from "./config";
+import { createTestDatabase, type TestDatabase } from "./db";
+
+export interface TestContext {
+  app: Express;
+  config: Config;
+  database: TestDatabase;
+  mailQueued: { count: number };
+  close: () => Promise<void>;
+}
+
+export async function createTestContext(overrides: Record<string, string> = {}): Promise<TestContext> {
+  const database = await createTestDatabase();
+  await seedDemo(database.db, "test");
+  const config = testConfig({ DATABASE_URL: database.url, ...overrides });
+  const mailQueued = { count: 0 };
+  const app = createApp({ config, db: database.db, log: pino({ level: "silent" }), onMailQueued: () => (mailQueued.count += 1) });
+  return { app, config, database, mailQueued, close: () => database.drop() };
+}
+
+export const withHeader = (test: request.Test) => test.set(requestHeader.name, requestHeader.value);
+
+export async function signInAs(app: Express, role: string) {
+  const res = await withHeader(request(app).post("/api/auth/sign-in")).send({
+    email: `${role}@demo.equipot.test`,
+    password: demoPassword,
+  });
+  if (res.status !== 200) throw new Error(`sign-in as ${role} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  const body = res.body as { accessToken: string; memberships: { campaignId: string; campaignName: string }[] };
+  const cookie = ([] as string[]).concat(res.headers["set-cookie"] ?? []).find((c) => c.startsWith("equipot_refresh="));
+  return { token: body.accessToken, memberships: body.memberships, cookie: cookie?.split(";")[0] ?? "", body: res.body };
+}

@@ -1,0 +1,40 @@
+// A real server for end-to-end tests: a fresh database seeded with the demo campaign, the built
+// PWA from dist/, and a local SMTP catcher, on a random loopback port.
+import { existsSync } from "node:fs";
+import { resolve } from "node:path";
+import { startMailCatcher, type MailCatcher } from "../../scripts/lib/mail-catcher";
+import { startServer } from "../../server/index";
+import { seedDemo } from "../../server/seed/demo";
+import { testConfig } from "./config";
+import { createTestDatabase, type TestDatabase } from "./db";
+
+export interface TestServer {
+  baseUrl: string;
+  databaseUrl: string;
+  database: TestDatabase;
+  mail: MailCatcher;
+  stop: () => Promise<void>;
+}
+
+export async function startTestServer(options: { seed?: boolean } = {}): Promise<TestServer> {
+  const staticDir = resolve("dist");
+  if (!existsSync(resolve(staticDir, "index.html"))) {
+    throw new Error("dist/ is missing: run `npx vite build` first (npm test does it)");
+  }
+  const database = await createTestDatabase();
+  if (options.seed ?? true) await seedDemo(database.db, "test");
+  const mail = await startMailCatcher();
+  const config = testConfig({ DATABASE_URL: database.url, STATIC_DIR: staticDir, SMTP_URL: mail.url, DEMO: "true" });
+  const running = await startServer(config);
+  return {
+    baseUrl: running.url,
+    databaseUrl: database.url,
+    database,
+    mail,
+    stop: async () => {
+      await running.close();
+      await mail.close();
+      await database.drop();
+    },
+  };
+}
