@@ -44,11 +44,15 @@ const contentSecurityPolicy = {
 
 function staticPwa(dir: string): RequestHandler[] {
   const root = resolve(dir);
-  const noCache = (path: string) => /(index\.html|sw\.js|registerSW\.js|manifest\.webmanifest)$/.test(path);
+  const noCache = (path: string) =>
+    /(index\.html|sw\.js|registerSW\.js|manifest\.webmanifest)$/.test(path);
   const serve = express.static(root, {
     index: false,
     setHeaders: (res, path) => {
-      res.setHeader("Cache-Control", noCache(path) ? "no-cache" : "public, max-age=31536000, immutable");
+      res.setHeader(
+        "Cache-Control",
+        noCache(path) ? "no-cache" : "public, max-age=31536000, immutable",
+      );
     },
   });
   const fallback: RequestHandler = (req, res, next) => {
@@ -59,12 +63,28 @@ function staticPwa(dir: string): RequestHandler[] {
   return [serve, fallback];
 }
 
-export function createApp({ config, db, log, onMailQueued = () => undefined, linkBase }: AppDeps): Express {
+export function createApp({
+  config,
+  db,
+  log,
+  onMailQueued = () => undefined,
+  linkBase,
+}: AppDeps): Express {
   const app = express();
   app.disable("x-powered-by");
   app.set("trust proxy", config.TRUST_PROXY === "true");
   app.use(helmet({ contentSecurityPolicy, crossOriginEmbedderPolicy: false }));
-  app.use(pinoHttp({ logger: log, autoLogging: { ignore: (req) => req.url === "/api/health" } }));
+  app.use(
+    pinoHttp({
+      logger: log,
+      autoLogging: { ignore: (req) => req.url === "/api/health" || !req.url?.startsWith("/api/") },
+      // One short line per request: headers (tokens, cookies) never reach the log.
+      serializers: {
+        req: (req: { method?: string; url?: string }) => ({ method: req.method, url: req.url }),
+        res: (res: { statusCode?: number }) => ({ status: res.statusCode }),
+      },
+    }),
+  );
 
   const tokens = createTokenService(config.JWT_SECRET, config.ACCESS_TOKEN_TTL_S);
   const authDeps: AuthRouterDeps = {
@@ -84,11 +104,16 @@ export function createApp({ config, db, log, onMailQueued = () => undefined, lin
   api.use("/health", healthRouter(db, config.DEMO === "true"));
   api.use("/auth", authRouter(authDeps));
   api.use("/invites", invitesRouter(authDeps));
-  api.use("/campaigns", authenticate(tokens), campaignsRouter({ db, linkBase: linkBase ?? (() => publicUrl(config)), onMailQueued }));
+  api.use(
+    "/campaigns",
+    authenticate(tokens),
+    campaignsRouter({ db, linkBase: linkBase ?? (() => publicUrl(config)), onMailQueued }),
+  );
   api.use(apiNotFound);
   app.use("/api", api);
 
-  if (config.STATIC_DIR && existsSync(join(config.STATIC_DIR, "index.html"))) app.use(staticPwa(config.STATIC_DIR));
+  if (config.STATIC_DIR && existsSync(join(config.STATIC_DIR, "index.html")))
+    app.use(staticPwa(config.STATIC_DIR));
   app.use(errorHandler);
   return app;
 }

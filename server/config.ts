@@ -8,13 +8,20 @@ const configSchema = z.object({
   DATABASE_URL: z.string().regex(/^postgres(ql)?:\/\//, "DATABASE_URL must be a postgres:// URL"),
   JWT_SECRET: z.string().min(32, "JWT_SECRET must be at least 32 characters"),
   PUBLIC_URL: z.url("PUBLIC_URL must be a URL such as http://127.0.0.1:8080").optional(),
-  SMTP_URL: z.string().regex(/^smtps?:\/\//, "SMTP_URL must be an smtp:// or smtps:// URL").optional(),
+  SMTP_URL: z
+    .string()
+    .regex(/^smtps?:\/\//, "SMTP_URL must be an smtp:// or smtps:// URL")
+    .optional(),
   MAIL_FROM: z.string().default("Equipot <no-reply@equipot.test>"),
   STATIC_DIR: z.string().optional(),
   LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
   TRUST_PROXY: z.enum(["true", "false"]).default("false"),
   ACCESS_TOKEN_TTL_S: z.coerce.number().int().min(30).max(3600).default(900),
-  REFRESH_TOKEN_TTL_S: z.coerce.number().int().min(3600).default(30 * 24 * 3600),
+  REFRESH_TOKEN_TTL_S: z.coerce
+    .number()
+    .int()
+    .min(3600)
+    .default(30 * 24 * 3600),
   DEMO: z.enum(["true", "false"]).default("false"),
 });
 

@@ -28,7 +28,13 @@ export const notFound = (message = "Not found") => new HttpError(404, "not_found
 export const conflict = (message: string, details?: FieldIssue[]) =>
   new HttpError(409, "conflict", message, details);
 export const tooManyRequests = (retryAfterS: number) =>
-  new HttpError(429, "too_many_requests", `Too many attempts. Try again in ${retryAfterS} s.`, undefined, {
-    "Retry-After": String(retryAfterS),
-  });
+  new HttpError(
+    429,
+    "too_many_requests",
+    `Too many attempts. Try again in ${retryAfterS} s.`,
+    undefined,
+    {
+      "Retry-After": String(retryAfterS),
+    },
+  );
 export const unavailable = (message: string) => new HttpError(503, "unavailable", message);

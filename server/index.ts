@@ -16,11 +16,19 @@ export interface RunningServer {
 export async function startServer(config: Config): Promise<RunningServer> {
   const log = createLogger(config);
   const database = connect(config.DATABASE_URL);
-  const mail = config.SMTP_URL ? createMailWorker(database.db, config.SMTP_URL, config.MAIL_FROM, log) : undefined;
+  const mail = config.SMTP_URL
+    ? createMailWorker(database.db, config.SMTP_URL, config.MAIL_FROM, log)
+    : undefined;
   if (!mail) log.warn("SMTP_URL is not set: e-mail stays in the outbox until it is");
   let url = publicUrl(config);
   const linkBase = () => url;
-  const app = createApp({ config, db: database.db, log, onMailQueued: () => mail?.kick(), linkBase });
+  const app = createApp({
+    config,
+    db: database.db,
+    log,
+    onMailQueued: () => mail?.kick(),
+    linkBase,
+  });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.PORT, config.HOST, () => resolve(s)).on("error", reject);
   });

@@ -24,10 +24,14 @@ export interface MailCatcher {
 
 function addressesOf(value: unknown): string[] {
   const list = Array.isArray(value) ? value : value ? [value] : [];
-  return list.flatMap((v: { value?: { address?: string }[] }) => (v.value ?? []).map((a) => a.address ?? "")).filter(Boolean);
+  return list
+    .flatMap((v: { value?: { address?: string }[] }) => (v.value ?? []).map((a) => a.address ?? ""))
+    .filter(Boolean);
 }
 
-export async function startMailCatcher(options: { port?: number; folder?: string } = {}): Promise<MailCatcher> {
+export async function startMailCatcher(
+  options: { port?: number; folder?: string } = {},
+): Promise<MailCatcher> {
   const messages: CaughtMail[] = [];
   const waiters = new Set<() => void>();
   if (options.folder) mkdirSync(options.folder, { recursive: true });
@@ -50,7 +54,8 @@ export async function startMailCatcher(options: { port?: number; folder?: string
               receivedAt: new Date().toISOString(),
             };
             messages.push(mail);
-            if (options.folder) writeFileSync(join(options.folder, `${Date.now()}-${messages.length}.eml`), raw);
+            if (options.folder)
+              writeFileSync(join(options.folder, `${Date.now()}-${messages.length}.eml`), raw);
             for (const wake of waiters) wake();
             callback();
           })

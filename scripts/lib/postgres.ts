@@ -2,7 +2,14 @@
 // Used by `npm start` (a durable cluster) and by the test run (a throw-away one with fsync off).
 import { execFileSync, spawnSync } from "node:child_process";
 import { createHash, randomBytes } from "node:crypto";
-import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
+import {
+  chownSync,
+  existsSync,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  writeFileSync,
+} from "node:fs";
 import { tmpdir, userInfo } from "node:os";
 import { dirname, join, resolve } from "node:path";
 
@@ -54,11 +61,22 @@ export function ensurePostgresInstalled(log: (line: string) => void = console.lo
 
 function ensurePostgresUser(): void {
   if (spawnSync("id", ["-u", "postgres"]).status === 0) return;
-  execFileSync("useradd", ["--system", "--home-dir", "/var/lib/postgresql", "--shell", "/bin/false", "postgres"]);
+  execFileSync("useradd", [
+    "--system",
+    "--home-dir",
+    "/var/lib/postgresql",
+    "--shell",
+    "/bin/false",
+    "postgres",
+  ]);
 }
 
 /** Runs a PostgreSQL binary as the postgres system user when we are root (initdb refuses root). */
-function runPg(binDir: string, tool: string, args: string[]): { status: number | null; output: string } {
+function runPg(
+  binDir: string,
+  tool: string,
+  args: string[],
+): { status: number | null; output: string } {
   const command = isRoot() ? "runuser" : join(binDir, tool);
   const fullArgs = isRoot() ? ["-u", "postgres", "--", join(binDir, tool), ...args] : args;
   const result = spawnSync(command, fullArgs, { cwd: "/", encoding: "utf8" });
@@ -67,7 +85,9 @@ function runPg(binDir: string, tool: string, args: string[]): { status: number |
 
 function postgresCanReach(dir: string): boolean {
   if (!isRoot()) return true;
-  return spawnSync("runuser", ["-u", "postgres", "--", "test", "-x", dir], { cwd: "/" }).status === 0;
+  return (
+    spawnSync("runuser", ["-u", "postgres", "--", "test", "-x", dir], { cwd: "/" }).status === 0
+  );
 }
 
 function chooseDataDir(preferred: string): string {
@@ -117,13 +137,29 @@ export function startCluster(options: ClusterOptions): Cluster {
   let startedHere = false;
   if (!isRunning(binDir, dataDir)) {
     const serverOptions = [`-c listen_addresses=127.0.0.1`, `-p ${options.port}`, `-k ${dataDir}`];
-    if (!options.durable) serverOptions.push("-c fsync=off -c synchronous_commit=off -c full_page_writes=off");
+    if (!options.durable)
+      serverOptions.push("-c fsync=off -c synchronous_commit=off -c full_page_writes=off");
     const logFile = join(dataDir, "server.log");
-    const args = ["-D", dataDir, "-l", logFile, "-w", "-t", "30", "-o", serverOptions.join(" "), "start"];
+    const args = [
+      "-D",
+      dataDir,
+      "-l",
+      logFile,
+      "-w",
+      "-t",
+      "30",
+      "-o",
+      serverOptions.join(" "),
+      "start",
+    ];
     const result = runPg(binDir, "pg_ctl", args);
     if (result.status !== 0) {
-      const tail = existsSync(logFile) ? readFileSync(logFile, "utf8").split("\n").slice(-15).join("\n") : "";
-      throw new Error(`PostgreSQL did not start on port ${options.port}:\n${result.output}\n${tail}`);
+      const tail = existsSync(logFile)
+        ? readFileSync(logFile, "utf8").split("\n").slice(-15).join("\n")
+        : "";
+      throw new Error(
+        `PostgreSQL did not start on port ${options.port}:\n${result.output}\n${tail}`,
+      );
     }
     startedHere = true;
   }
@@ -134,7 +170,8 @@ export function startCluster(options: ClusterOptions): Cluster {
     dataDir,
     startedHere,
     stop: () => {
-      if (isRunning(binDir, dataDir)) runPg(binDir, "pg_ctl", ["-D", dataDir, "-m", "fast", "-w", "stop"]);
+      if (isRunning(binDir, dataDir))
+        runPg(binDir, "pg_ctl", ["-D", dataDir, "-m", "fast", "-w", "stop"]);
     },
   };
 }

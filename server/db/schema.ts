@@ -54,7 +54,10 @@ export const memberships = pgTable(
     role: roleEnum("role").notNull(),
     createdAt: createdAt(),
   },
-  (t) => [primaryKey({ columns: [t.campaignId, t.userId] }), index("memberships_user_idx").on(t.userId)],
+  (t) => [
+    primaryKey({ columns: [t.campaignId, t.userId] }),
+    index("memberships_user_idx").on(t.userId),
+  ],
 );
 
 export const refreshTokens = pgTable(
@@ -71,7 +74,10 @@ export const refreshTokens = pgTable(
     rotatedAt: timestamp("rotated_at", { withTimezone: true }),
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
   },
-  (t) => [uniqueIndex("refresh_tokens_hash_key").on(t.tokenHash), index("refresh_tokens_family_idx").on(t.familyId)],
+  (t) => [
+    uniqueIndex("refresh_tokens_hash_key").on(t.tokenHash),
+    index("refresh_tokens_family_idx").on(t.familyId),
+  ],
 );
 
 export const invites = pgTable(
@@ -99,7 +105,6 @@ export const authThrottle = pgTable("auth_throttle", {
   windowStartedAt: timestamp("window_started_at", { withTimezone: true }).notNull().defaultNow(),
   blockedUntil: timestamp("blocked_until", { withTimezone: true }),
 });
-
 
 export const sites = pgTable(
   "sites",
@@ -153,5 +158,9 @@ export const emailOutbox = pgTable(
     sentAt: timestamp("sent_at", { withTimezone: true }),
     lastError: text("last_error"),
   },
-  (t) => [index("email_outbox_due_idx").on(t.nextAttemptAt).where(sql`${t.sentAt} is null`)],
+  (t) => [
+    index("email_outbox_due_idx")
+      .on(t.nextAttemptAt)
+      .where(sql`${t.sentAt} is null`),
+  ],
 );

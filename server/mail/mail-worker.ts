@@ -14,7 +14,13 @@ export interface MailWorker {
 
 const retryDelayS = (attempts: number) => Math.min(3600, 5 * 2 ** Math.min(attempts, 10));
 
-export function createMailWorker(db: Db, smtpUrl: string, from: string, log: Logger, intervalMs = 5000): MailWorker {
+export function createMailWorker(
+  db: Db,
+  smtpUrl: string,
+  from: string,
+  log: Logger,
+  intervalMs = 5000,
+): MailWorker {
   const transport: Transporter = nodemailer.createTransport(smtpUrl);
   let running: Promise<number> | undefined;
   let stopped = false;
@@ -24,7 +30,12 @@ export function createMailWorker(db: Db, smtpUrl: string, from: string, log: Log
       let sent = 0;
       for (const email of await claimDueEmails(tx, 20)) {
         try {
-          await transport.sendMail({ from, to: email.toAddress, subject: email.subject, text: email.textBody });
+          await transport.sendMail({
+            from,
+            to: email.toAddress,
+            subject: email.subject,
+            text: email.textBody,
+          });
           await markEmailSent(tx, email.id);
           sent += 1;
         } catch (error) {
@@ -41,7 +52,8 @@ export function createMailWorker(db: Db, smtpUrl: string, from: string, log: Log
     return running;
   };
   const tick = () => {
-    if (!stopped) drain().catch((error: unknown) => log.error({ err: error }, "mail worker failed"));
+    if (!stopped)
+      drain().catch((error: unknown) => log.error({ err: error }, "mail worker failed"));
   };
   const timer = setInterval(tick, intervalMs);
   timer.unref();

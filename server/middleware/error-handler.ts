@@ -9,15 +9,22 @@ interface BodyParserError {
 
 function fromBodyParser(err: unknown): HttpError | undefined {
   const e = err as BodyParserError;
-  if (e?.type === "entity.too.large") return new HttpError(413, "payload_too_large", "The request body is too large");
-  if (e?.type === "entity.parse.failed") return new HttpError(400, "bad_request", "The request body is not valid JSON");
+  if (e?.type === "entity.too.large")
+    return new HttpError(413, "payload_too_large", "The request body is too large");
+  if (e?.type === "entity.parse.failed")
+    return new HttpError(400, "bad_request", "The request body is not valid JSON");
   if (e?.type === "encoding.unsupported" || e?.type === "charset.unsupported") {
-    return new HttpError(415 as number, "bad_request", "The request body encoding is not supported");
+    return new HttpError(
+      415 as number,
+      "bad_request",
+      "The request body encoding is not supported",
+    );
   }
   return undefined;
 }
 
-export const apiNotFound: RequestHandler = (_req, _res, next) => next(notFound("No such API route"));
+export const apiNotFound: RequestHandler = (_req, _res, next) =>
+  next(notFound("No such API route"));
 
 /** Registered last. Unknown errors are logged and answered 500 without internals. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {

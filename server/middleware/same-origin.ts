@@ -18,9 +18,11 @@ export function sameOriginOnly(): RequestHandler {
       throw forbidden(`This request must carry the ${requestHeader.name} header`);
     }
     const site = req.get("sec-fetch-site");
-    if (site && site !== "same-origin" && site !== "none") throw forbidden("Cross-site requests are refused");
+    if (site && site !== "same-origin" && site !== "none")
+      throw forbidden("Cross-site requests are refused");
     const origin = req.get("origin");
-    if (origin && hostOf(origin) !== req.get("host")) throw forbidden("Cross-site requests are refused");
+    if (origin && hostOf(origin) !== req.get("host"))
+      throw forbidden("Cross-site requests are refused");
     next();
   };
 }

@@ -7,7 +7,10 @@ export function toFieldIssues(error: z.ZodError): FieldIssue[] {
     const keys = issue.code === "unrecognized_keys" ? issue.keys : [];
     const base = issue.path.map(String).join(".");
     const path = keys.length > 0 ? [base, keys.join(",")].filter(Boolean).join(".") : base;
-    const message = keys.length > 0 ? `Unknown field${keys.length > 1 ? "s" : ""}: ${keys.join(", ")}` : issue.message;
+    const message =
+      keys.length > 0
+        ? `Unknown field${keys.length > 1 ? "s" : ""}: ${keys.join(", ")}`
+        : issue.message;
     return { path, message };
   });
 }

@@ -23,7 +23,14 @@ export const demoCampaign = {
     "A transportable clock taken from the Brennmoor reference laboratory to the Kestrel Ridge hut and the Saltmere tide station, tied by levelling to the local benchmarks.",
 };
 
-const demoSites: { name: string; kind: SiteKind; latitudeDeg: number; longitudeDeg: number; approxHeightM: number; notes: string }[] = [
+const demoSites: {
+  name: string;
+  kind: SiteKind;
+  latitudeDeg: number;
+  longitudeDeg: number;
+  approxHeightM: number;
+  notes: string;
+}[] = [
   {
     name: "Brennmoor reference laboratory",
     kind: "reference-lab",
@@ -38,7 +45,8 @@ const demoSites: { name: string; kind: SiteKind; latitudeDeg: number; longitudeD
     latitudeDeg: 47.0842,
     longitudeDeg: 11.2273,
     approxHeightM: 2871,
-    notes: "Access by cable car until 16:00 UTC. Weather turns fast above the tree line: check the forecast before moving crates.",
+    notes:
+      "Access by cable car until 16:00 UTC. Weather turns fast above the tree line: check the forecast before moving crates.",
   },
   {
     name: "Saltmere tide station",
@@ -57,28 +65,48 @@ export async function isDatabaseEmpty(db: Db): Promise<boolean> {
 
 /** Seeds the demo campaign. Returns false (and writes nothing) when the database already has data. */
 export async function seedDemo(db: Db, nodeEnv: string): Promise<boolean> {
-  if (nodeEnv === "production") throw new Error("The demo seed never runs with NODE_ENV=production");
+  if (nodeEnv === "production")
+    throw new Error("The demo seed never runs with NODE_ENV=production");
   if (!(await isDatabaseEmpty(db))) return false;
   const passwordHash = await hashPassword(demoPassword);
   await db.transaction(async (tx) => {
     const [campaign] = await tx.insert(campaigns).values(demoCampaign).returning();
     const [practice] = await tx
       .insert(campaigns)
-      .values({ name: "Practice traverse (training)", description: "A small campaign for training new crew members." })
+      .values({
+        name: "Practice traverse (training)",
+        description: "A small campaign for training new crew members.",
+      })
       .returning();
     if (!campaign || !practice) throw new Error("demo campaigns were not created");
     const people = await tx
       .insert(users)
       .values(demoAccounts.map(({ email, name }) => ({ email, name, passwordHash })))
       .returning();
-    await tx.insert(memberships).values(
-      people.map((person, i) => ({ campaignId: campaign.id, userId: person.id, role: demoAccounts[i]?.role ?? "field" })),
-    );
+    await tx
+      .insert(memberships)
+      .values(
+        people.map((person, i) => ({
+          campaignId: campaign.id,
+          userId: person.id,
+          role: demoAccounts[i]?.role ?? "field",
+        })),
+      );
     const admin = people.find((p) => p.email.startsWith("admin@"));
-    if (admin) await tx.insert(memberships).values({ campaignId: practice.id, userId: admin.id, role: "admin" });
-    await tx.insert(sites).values(
-      demoSites.map((site) => ({ ...site, id: crypto.randomUUID(), campaignId: campaign.id, updatedBy: admin?.id ?? null })),
-    );
+    if (admin)
+      await tx
+        .insert(memberships)
+        .values({ campaignId: practice.id, userId: admin.id, role: "admin" });
+    await tx
+      .insert(sites)
+      .values(
+        demoSites.map((site) => ({
+          ...site,
+          id: crypto.randomUUID(),
+          campaignId: campaign.id,
+          updatedBy: admin?.id ?? null,
+        })),
+      );
   });
   return true;
 }

@@ -34,10 +34,20 @@ export async function describeUser(q: Queryable, userId: string) {
   return { user: { id: user.id, email: user.email, name: user.name }, memberships };
 }
 
-async function issue(deps: AuthDeps, q: Queryable, userId: string, familyId: string): Promise<IssuedSession> {
+async function issue(
+  deps: AuthDeps,
+  q: Queryable,
+  userId: string,
+  familyId: string,
+): Promise<IssuedSession> {
   const refreshToken = newOpaqueToken();
   const expiresAt = new Date(Date.now() + deps.refreshTtlS * 1000);
-  await insertRefreshToken(q, { userId, familyId, tokenHash: hashOpaqueToken(refreshToken), expiresAt });
+  await insertRefreshToken(q, {
+    userId,
+    familyId,
+    tokenHash: hashOpaqueToken(refreshToken),
+    expiresAt,
+  });
   const accessToken = await deps.tokens.signAccess(userId);
   return { session: { accessToken, ...(await describeUser(q, userId)) }, refreshToken };
 }
@@ -57,7 +67,8 @@ export async function signIn(deps: AuthDeps, email: string, password: string, ad
   return issue(deps, deps.db, user.id, randomUUID());
 }
 
-export const issueNewSession = (deps: AuthDeps, q: Queryable, userId: string) => issue(deps, q, userId, randomUUID());
+export const issueNewSession = (deps: AuthDeps, q: Queryable, userId: string) =>
+  issue(deps, q, userId, randomUUID());
 
 type RefreshOutcome = { kind: "ok"; issued: IssuedSession } | { kind: "refused" };
 

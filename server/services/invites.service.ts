@@ -5,7 +5,13 @@ import { roleLabels } from "../../shared/permissions";
 import type { AcceptInviteInput, InviteInput } from "../../shared/schemas/auth";
 import type { Db } from "../db/client";
 import { recordAudit } from "../db/repositories/audit";
-import { findCampaign, findOpenInviteForUpdate, insertInvite, markInviteAccepted, upsertMembership } from "../db/repositories/campaigns";
+import {
+  findCampaign,
+  findOpenInviteForUpdate,
+  insertInvite,
+  markInviteAccepted,
+  upsertMembership,
+} from "../db/repositories/campaigns";
 import { enqueueEmail } from "../db/repositories/outbox";
 import { findUserByEmail } from "../db/repositories/users";
 import { users } from "../db/schema";
@@ -16,13 +22,25 @@ import { hashOpaqueToken, newOpaqueToken } from "./tokens";
 
 const inviteTtlS = 7 * 24 * 3600;
 
-export async function createInvite(db: Db, scope: { campaignId: string; userId: string }, input: InviteInput, publicUrl: string) {
+export async function createInvite(
+  db: Db,
+  scope: { campaignId: string; userId: string },
+  input: InviteInput,
+  publicUrl: string,
+) {
   const token = newOpaqueToken();
   return db.transaction(async (tx) => {
     const campaign = await findCampaign(tx, scope.campaignId);
     if (!campaign) throw notFound("Campaign not found");
     const expiresAt = new Date(Date.now() + inviteTtlS * 1000);
-    const row = await insertInvite(tx, { ...scope, invitedBy: scope.userId, email: input.email, role: input.role, tokenHash: hashOpaqueToken(token), expiresAt });
+    const row = await insertInvite(tx, {
+      ...scope,
+      invitedBy: scope.userId,
+      email: input.email,
+      role: input.role,
+      tokenHash: hashOpaqueToken(token),
+      expiresAt,
+    });
     const link = `${publicUrl.replace(/\/$/, "")}/invite/${token}`;
     await enqueueEmail(tx, {
       toAddress: input.email,
@@ -36,7 +54,13 @@ export async function createInvite(db: Db, scope: { campaignId: string; userId: 
         "If you did not expect this message, you can ignore it.",
       ].join("\n"),
     });
-    await recordAudit(tx, { ...scope, action: "invite", entity: "invite", entityId: row.id, after: { email: input.email, role: input.role } });
+    await recordAudit(tx, {
+      ...scope,
+      action: "invite",
+      entity: "invite",
+      entityId: row.id,
+      after: { email: input.email, role: input.role },
+    });
     return { email: row.email, role: row.role, expiresAt: row.expiresAt.toISOString() };
   });
 }
@@ -51,13 +75,23 @@ export async function acceptInvite(deps: AuthDeps, input: AcceptInviteInput) {
     if (existing) {
       await tx.update(users).set({ passwordHash }).where(eq(users.id, existing.id));
     } else {
-      const [created] = await tx.insert(users).values({ email: invite.email, name: input.name, passwordHash }).returning({ id: users.id });
+      const [created] = await tx
+        .insert(users)
+        .values({ email: invite.email, name: input.name, passwordHash })
+        .returning({ id: users.id });
       userId = created?.id;
     }
     if (!userId) throw new Error("user was not created");
     await upsertMembership(tx, invite.campaignId, userId, invite.role);
     await markInviteAccepted(tx, invite.id);
-    await recordAudit(tx, { campaignId: invite.campaignId, userId, action: "accept-invite", entity: "membership", entityId: userId, after: { role: invite.role } });
+    await recordAudit(tx, {
+      campaignId: invite.campaignId,
+      userId,
+      action: "accept-invite",
+      entity: "membership",
+      entityId: userId,
+      after: { role: invite.role },
+    });
     return issueNewSession(deps, tx, userId);
   });
 }

@@ -2,7 +2,13 @@ import { randomUUID } from "node:crypto";
 import type { SiteCreateInput, SiteUpdateInput, SiteView } from "../../shared/schemas/sites";
 import type { Db } from "../db/client";
 import { recordAudit } from "../db/repositories/audit";
-import { findSiteAnywhere, findSiteForUpdate, insertSite, listSites, updateSite } from "../db/repositories/sites";
+import {
+  findSiteAnywhere,
+  findSiteForUpdate,
+  insertSite,
+  listSites,
+  updateSite,
+} from "../db/repositories/sites";
 import { conflict, notFound } from "../http-errors";
 import { presentSite } from "../presenters/site";
 
@@ -11,7 +17,8 @@ interface Scope {
   userId: string;
 }
 
-export const listCampaignSites = async (db: Db, campaignId: string) => (await listSites(db, campaignId)).map(presentSite);
+export const listCampaignSites = async (db: Db, campaignId: string) =>
+  (await listSites(db, campaignId)).map(presentSite);
 
 type CreateFields = Omit<SiteCreateInput, "notes"> & { notes: string };
 
@@ -20,19 +27,37 @@ export async function createSite(db: Db, scope: Scope, input: CreateFields): Pro
     const id = input.id ?? randomUUID();
     const existing = await findSiteAnywhere(tx, id);
     if (existing) throw conflict("A site with this id already exists");
-    const row = await insertSite(tx, { ...input, id, campaignId: scope.campaignId, updatedBy: scope.userId });
+    const row = await insertSite(tx, {
+      ...input,
+      id,
+      campaignId: scope.campaignId,
+      updatedBy: scope.userId,
+    });
     const view = presentSite(row);
-    await recordAudit(tx, { ...scope, action: "create", entity: "site", entityId: id, after: view });
+    await recordAudit(tx, {
+      ...scope,
+      action: "create",
+      entity: "site",
+      entityId: id,
+      after: view,
+    });
     return view;
   });
 }
 
-export async function editSite(db: Db, scope: Scope, id: string, input: SiteUpdateInput): Promise<SiteView> {
+export async function editSite(
+  db: Db,
+  scope: Scope,
+  id: string,
+  input: SiteUpdateInput,
+): Promise<SiteView> {
   return db.transaction(async (tx) => {
     const current = await findSiteForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Site not found");
     if (current.version !== input.baseVersion) {
-      throw conflict(`This site was changed by someone else (now version ${current.version}). Reload it and edit again.`);
+      throw conflict(
+        `This site was changed by someone else (now version ${current.version}). Reload it and edit again.`,
+      );
     }
     const { baseVersion: _baseVersion, ...fields } = input;
     const row = await updateSite(tx, id, {
@@ -42,7 +67,14 @@ export async function editSite(db: Db, scope: Scope, id: string, input: SiteUpda
       updatedBy: scope.userId,
     });
     const after = presentSite(row);
-    await recordAudit(tx, { ...scope, action: "update", entity: "site", entityId: id, before: presentSite(current), after });
+    await recordAudit(tx, {
+      ...scope,
+      action: "update",
+      entity: "site",
+      entityId: id,
+      before: presentSite(current),
+      after,
+    });
     return after;
   });
 }
@@ -52,7 +84,18 @@ export async function deleteSite(db: Db, scope: Scope, id: string): Promise<void
     const current = await findSiteForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Site not found");
     const now = new Date();
-    await updateSite(tx, id, { deletedAt: now, updatedAt: now, updatedBy: scope.userId, version: current.version + 1 });
-    await recordAudit(tx, { ...scope, action: "delete", entity: "site", entityId: id, before: presentSite(current) });
+    await updateSite(tx, id, {
+      deletedAt: now,
+      updatedAt: now,
+      updatedBy: scope.userId,
+      version: current.version + 1,
+    });
+    await recordAudit(tx, {
+      ...scope,
+      action: "delete",
+      entity: "site",
+      entityId: id,
+      before: presentSite(current),
+    });
   });
 }

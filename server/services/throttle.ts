@@ -17,16 +17,28 @@ const accountBlock = (failures: number) =>
   failures < accountFreeFailures ? 0 : Math.min(maxBlockS, 2 ** (failures - accountFreeFailures));
 const addressBlock = (failures: number) => (failures < addressFreeFailures ? 0 : 5 * 60);
 
-export async function assertNotThrottled(q: Queryable, email: string, address: string): Promise<void> {
+export async function assertNotThrottled(
+  q: Queryable,
+  email: string,
+  address: string,
+): Promise<void> {
   const rows = await findThrottles(q, [accountKey(email), addressKey(address)]);
   const now = Date.now();
-  const waitMs = Math.max(0, ...rows.map((r) => (r.blockedUntil ? r.blockedUntil.getTime() - now : 0)));
+  const waitMs = Math.max(
+    0,
+    ...rows.map((r) => (r.blockedUntil ? r.blockedUntil.getTime() - now : 0)),
+  );
   if (waitMs > 0) throw tooManyRequests(Math.ceil(waitMs / 1000));
 }
 
-export async function recordSignInFailure(q: Queryable, email: string, address: string): Promise<void> {
+export async function recordSignInFailure(
+  q: Queryable,
+  email: string,
+  address: string,
+): Promise<void> {
   await recordFailure(q, accountKey(email), windowS, accountBlock);
   await recordFailure(q, addressKey(address), windowS, addressBlock);
 }
 
-export const recordSignInSuccess = (q: Queryable, email: string) => clearThrottle(q, accountKey(email));
+export const recordSignInSuccess = (q: Queryable, email: string) =>
+  clearThrottle(q, accountKey(email));

@@ -28,7 +28,12 @@ export function createTokenService(secret: string, accessTtlS: number) {
     /** Returns the claims, or undefined for any token that is not a valid, current access token. */
     async verifyAccess(token: string): Promise<AccessClaims | undefined> {
       try {
-        const { payload } = await jwtVerify(token, key, { algorithms: [algorithm], issuer, audience, requiredClaims: ["exp", "sub"] });
+        const { payload } = await jwtVerify(token, key, {
+          algorithms: [algorithm],
+          issuer,
+          audience,
+          requiredClaims: ["exp", "sub"],
+        });
         if (payload.typ !== "access" || typeof payload.sub !== "string") return undefined;
         return { userId: payload.sub };
       } catch {

@@ -17,12 +17,19 @@ export interface TestContext {
   close: () => Promise<void>;
 }
 
-export async function createTestContext(overrides: Record<string, string> = {}): Promise<TestContext> {
+export async function createTestContext(
+  overrides: Record<string, string> = {},
+): Promise<TestContext> {
   const database = await createTestDatabase();
   await seedDemo(database.db, "test");
   const config = testConfig({ DATABASE_URL: database.url, ...overrides });
   const mailQueued = { count: 0 };
-  const app = createApp({ config, db: database.db, log: pino({ level: "silent" }), onMailQueued: () => (mailQueued.count += 1) });
+  const app = createApp({
+    config,
+    db: database.db,
+    log: pino({ level: "silent" }),
+    onMailQueued: () => (mailQueued.count += 1),
+  });
   return { app, config, database, mailQueued, close: () => database.drop() };
 }
 
@@ -33,8 +40,19 @@ export async function signInAs(app: Express, role: string) {
     email: `${role}@demo.equipot.test`,
     password: demoPassword,
   });
-  if (res.status !== 200) throw new Error(`sign-in as ${role} failed: ${res.status} ${JSON.stringify(res.body)}`);
-  const body = res.body as { accessToken: string; memberships: { campaignId: string; campaignName: string }[] };
-  const cookie = ([] as string[]).concat(res.headers["set-cookie"] ?? []).find((c) => c.startsWith("equipot_refresh="));
-  return { token: body.accessToken, memberships: body.memberships, cookie: cookie?.split(";")[0] ?? "", body: res.body };
+  if (res.status !== 200)
+    throw new Error(`sign-in as ${role} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  const body = res.body as {
+    accessToken: string;
+    memberships: { campaignId: string; campaignName: string }[];
+  };
+  const cookie = ([] as string[])
+    .concat(res.headers["set-cookie"] ?? [])
+    .find((c) => c.startsWith("equipot_refresh="));
+  return {
+    token: body.accessToken,
+    memberships: body.memberships,
+    cookie: cookie?.split(";")[0] ?? "",
+    body: res.body,
+  };
 }

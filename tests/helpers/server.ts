@@ -24,7 +24,12 @@ export async function startTestServer(options: { seed?: boolean } = {}): Promise
   const database = await createTestDatabase();
   if (options.seed ?? true) await seedDemo(database.db, "test");
   const mail = await startMailCatcher();
-  const config = testConfig({ DATABASE_URL: database.url, STATIC_DIR: staticDir, SMTP_URL: mail.url, DEMO: "true" });
+  const config = testConfig({
+    DATABASE_URL: database.url,
+    STATIC_DIR: staticDir,
+    SMTP_URL: mail.url,
+    DEMO: "true",
+  });
   const running = await startServer(config);
   return {
     baseUrl: running.url,

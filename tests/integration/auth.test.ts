@@ -17,17 +17,22 @@ const signIn = (email: string, password: string) =>
   withHeader(request(ctx.app).post("/api/auth/sign-in")).send({ email, password });
 
 describe("sign-in", () => {
-  it.each(demoAccounts.map((a) => [a.role, a.email] as const))("signs in the %s demo account", async (role, email) => {
-    const res = await signIn(email, demoPassword);
-    expect(res.status).toBe(200);
-    expect(res.body.user.email).toBe(email);
-    expect(res.body.memberships).toContainEqual(expect.objectContaining({ role, campaignName: expect.stringContaining("Kestrel") }));
-    const cookie = String(res.headers["set-cookie"]);
-    expect(cookie).toMatch(/equipot_refresh=/);
-    expect(cookie).toMatch(/HttpOnly/);
-    expect(cookie).toMatch(/SameSite=Strict/);
-    expect(cookie).toMatch(/Path=\/api\/auth/);
-  });
+  it.each(demoAccounts.map((a) => [a.role, a.email] as const))(
+    "signs in the %s demo account",
+    async (role, email) => {
+      const res = await signIn(email, demoPassword);
+      expect(res.status).toBe(200);
+      expect(res.body.user.email).toBe(email);
+      expect(res.body.memberships).toContainEqual(
+        expect.objectContaining({ role, campaignName: expect.stringContaining("Kestrel") }),
+      );
+      const cookie = String(res.headers["set-cookie"]);
+      expect(cookie).toMatch(/equipot_refresh=/);
+      expect(cookie).toMatch(/HttpOnly/);
+      expect(cookie).toMatch(/SameSite=Strict/);
+      expect(cookie).toMatch(/Path=\/api\/auth/);
+    },
+  );
 
   it("answers a wrong password and an unknown e-mail with the same 401", async () => {
     const wrong = await signIn("field@demo.equipot.test", "not-the-password");
@@ -35,7 +40,10 @@ describe("sign-in", () => {
     expect(wrong.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(wrong.body).toEqual(unknown.body);
-    expect(wrong.body.error).toEqual({ code: "unauthenticated", message: "E-mail or password is wrong" });
+    expect(wrong.body.error).toEqual({
+      code: "unauthenticated",
+      message: "E-mail or password is wrong",
+    });
   });
 
   it("names the bad field for an invalid payload", async () => {
@@ -46,11 +54,19 @@ describe("sign-in", () => {
   });
 
   it("refuses a sign-in without the same-origin header or from another site", async () => {
-    const bare = await request(ctx.app).post("/api/auth/sign-in").send({ email: "field@demo.equipot.test", password: demoPassword });
+    const bare = await request(ctx.app)
+      .post("/api/auth/sign-in")
+      .send({ email: "field@demo.equipot.test", password: demoPassword });
     expect(bare.status).toBe(403);
-    const crossSite = await signIn("field@demo.equipot.test", demoPassword).set("Sec-Fetch-Site", "cross-site");
+    const crossSite = await signIn("field@demo.equipot.test", demoPassword).set(
+      "Sec-Fetch-Site",
+      "cross-site",
+    );
     expect(crossSite.status).toBe(403);
-    const foreignOrigin = await signIn("field@demo.equipot.test", demoPassword).set("Origin", "http://evil.example");
+    const foreignOrigin = await signIn("field@demo.equipot.test", demoPassword).set(
+      "Origin",
+      "http://evil.example",
+    );
     expect(foreignOrigin.status).toBe(403);
   });
 
@@ -66,7 +82,8 @@ describe("sign-in", () => {
 });
 
 describe("access tokens", () => {
-  const me = (token: string) => request(ctx.app).get("/api/auth/me").set("Authorization", `Bearer ${token}`);
+  const me = (token: string) =>
+    request(ctx.app).get("/api/auth/me").set("Authorization", `Bearer ${token}`);
 
   it("accepts a fresh token and refuses none", async () => {
     const { token } = await signInAs(ctx.app, "field");
@@ -78,7 +95,9 @@ describe("access tokens", () => {
     const { token } = await signInAs(ctx.app, "field");
     const [header, payload, signature] = token.split(".");
     const claims = JSON.parse(new TextDecoder().decode(base64url.decode(payload ?? "")));
-    const forged = base64url.encode(JSON.stringify({ ...claims, sub: "00000000-0000-4000-8000-000000000000" }));
+    const forged = base64url.encode(
+      JSON.stringify({ ...claims, sub: "00000000-0000-4000-8000-000000000000" }),
+    );
     const tampered = `${header}.${forged}.${signature}`;
     const none = `${base64url.encode(JSON.stringify({ alg: "none", typ: "JWT" }))}.${payload}.`;
     const key = new TextEncoder().encode(ctx.config.JWT_SECRET);
@@ -113,9 +132,12 @@ describe("access tokens", () => {
 });
 
 describe("refresh tokens", () => {
-  const refresh = (cookie: string) => withHeader(request(ctx.app).post("/api/auth/refresh")).set("Cookie", cookie);
+  const refresh = (cookie: string) =>
+    withHeader(request(ctx.app).post("/api/auth/refresh")).set("Cookie", cookie);
   const cookieOf = (res: request.Response) =>
-    String([res.headers["set-cookie"]].flat().find((c) => String(c).startsWith("equipot_refresh="))).split(";")[0] ?? "";
+    String(
+      [res.headers["set-cookie"]].flat().find((c) => String(c).startsWith("equipot_refresh=")),
+    ).split(";")[0] ?? "";
 
   it("rotates, and revokes the whole family when a rotated token is used again", async () => {
     const first = await signInAs(ctx.app, "logistics");
@@ -139,7 +161,10 @@ describe("refresh tokens", () => {
 
   it("ends the session on sign-out", async () => {
     const session = await signInAs(ctx.app, "geodesist");
-    const out = await withHeader(request(ctx.app).post("/api/auth/sign-out")).set("Cookie", session.cookie);
+    const out = await withHeader(request(ctx.app).post("/api/auth/sign-out")).set(
+      "Cookie",
+      session.cookie,
+    );
     expect(out.status).toBe(204);
     expect((await refresh(session.cookie)).status).toBe(401);
   });

@@ -13,10 +13,17 @@ let otherSiteId: string;
 beforeAll(async () => {
   ctx = await createTestContext();
   const { db } = ctx.database;
-  const [other] = await db.insert(campaigns).values({ name: "Other campaign B", description: "secret-b" }).returning();
+  const [other] = await db
+    .insert(campaigns)
+    .values({ name: "Other campaign B", description: "secret-b" })
+    .returning();
   const [outsider] = await db
     .insert(users)
-    .values({ email: "outsider@b.equipot.test", name: "Outsider", passwordHash: await hashPassword("outsider-password") })
+    .values({
+      email: "outsider@b.equipot.test",
+      name: "Outsider",
+      passwordHash: await hashPassword("outsider-password"),
+    })
     .returning();
   if (!other || !outsider) throw new Error("fixture");
   otherCampaignId = other.id;
@@ -39,7 +46,13 @@ afterAll(async () => {
 });
 
 const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-const validSite = { name: "Benchmark shed", kind: "mountain", latitudeDeg: 47.1, longitudeDeg: 11.2, approxHeightM: 2100 };
+const validSite = {
+  name: "Benchmark shed",
+  kind: "mountain",
+  latitudeDeg: 47.1,
+  longitudeDeg: 11.2,
+  approxHeightM: 2100,
+};
 
 describe("health", () => {
   it("reports the database", async () => {
@@ -54,20 +67,26 @@ describe("campaigns", () => {
     const { token } = await signInAs(ctx.app, "field");
     const res = await request(ctx.app).get("/api/campaigns").set(auth(token));
     expect(res.status).toBe(200);
-    expect(res.body.campaigns.map((c: { name: string }) => c.name)).toEqual(["Kestrel Ridge height link 2027"]);
+    expect(res.body.campaigns.map((c: { name: string }) => c.name)).toEqual([
+      "Kestrel Ridge height link 2027",
+    ]);
     expect(JSON.stringify(res.body)).not.toContain("secret-b");
   });
 
   it("refuses a field user on an admin route with 403", async () => {
     const { token } = await signInAs(ctx.app, "field");
-    const res = await request(ctx.app).get(`/api/campaigns/${demoCampaignId}/members`).set(auth(token));
+    const res = await request(ctx.app)
+      .get(`/api/campaigns/${demoCampaignId}/members`)
+      .set(auth(token));
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe("forbidden");
   });
 
   it("lets the admin list members", async () => {
     const { token } = await signInAs(ctx.app, "admin");
-    const res = await request(ctx.app).get(`/api/campaigns/${demoCampaignId}/members`).set(auth(token));
+    const res = await request(ctx.app)
+      .get(`/api/campaigns/${demoCampaignId}/members`)
+      .set(auth(token));
     expect(res.status).toBe(200);
     expect(res.body.members).toHaveLength(5);
   });
@@ -85,11 +104,17 @@ describe("sites", () => {
     const listed = await request(ctx.app).get(base).set(auth(token));
     expect(listed.body.sites.map((s: { id: string }) => s.id)).toContain(id);
 
-    const edited = await request(ctx.app).patch(`${base}/${id}`).set(auth(token)).send({ baseVersion: 1, name: "Benchmark shed east" });
+    const edited = await request(ctx.app)
+      .patch(`${base}/${id}`)
+      .set(auth(token))
+      .send({ baseVersion: 1, name: "Benchmark shed east" });
     expect(edited.status).toBe(200);
     expect(edited.body.site).toMatchObject({ name: "Benchmark shed east", version: 2 });
 
-    const stale = await request(ctx.app).patch(`${base}/${id}`).set(auth(token)).send({ baseVersion: 1, name: "Lost edit" });
+    const stale = await request(ctx.app)
+      .patch(`${base}/${id}`)
+      .set(auth(token))
+      .send({ baseVersion: 1, name: "Lost edit" });
     expect(stale.status).toBe(409);
 
     expect((await request(ctx.app).delete(`${base}/${id}`).set(auth(token))).status).toBe(204);
@@ -97,21 +122,30 @@ describe("sites", () => {
     expect(after.body.sites.map((s: { id: string }) => s.id)).not.toContain(id);
     const [row] = await ctx.database.db.select().from(sites).where(eq(sites.id, id));
     expect(row?.deletedAt).toBeInstanceOf(Date);
-    const audit = await ctx.database.db.select().from(auditEvents).where(eq(auditEvents.entityId, id));
+    const audit = await ctx.database.db
+      .select()
+      .from(auditEvents)
+      .where(eq(auditEvents.entityId, id));
     expect(audit.map((a) => a.action)).toEqual(["create", "update", "delete"]);
   });
 
   it("keeps a client-made id", async () => {
     const { token } = await signInAs(ctx.app, "field");
     const id = crypto.randomUUID();
-    const res = await request(ctx.app).post(`/api/campaigns/${demoCampaignId}/sites`).set(auth(token)).send({ ...validSite, id });
+    const res = await request(ctx.app)
+      .post(`/api/campaigns/${demoCampaignId}/sites`)
+      .set(auth(token))
+      .send({ ...validSite, id });
     expect(res.status).toBe(201);
     expect(res.body.site.id).toBe(id);
   });
 
   it("refuses a reviewer's write with 403", async () => {
     const { token } = await signInAs(ctx.app, "reviewer");
-    const res = await request(ctx.app).post(`/api/campaigns/${demoCampaignId}/sites`).set(auth(token)).send(validSite);
+    const res = await request(ctx.app)
+      .post(`/api/campaigns/${demoCampaignId}/sites`)
+      .set(auth(token))
+      .send(validSite);
     expect(res.status).toBe(403);
   });
 
@@ -124,16 +158,25 @@ describe("sites", () => {
     expect(res.status).toBe(400);
     const paths = res.body.error.details.map((d: { path: string }) => d.path);
     expect(paths).toEqual(expect.arrayContaining(["latitudeDeg", "name", "campaignId"]));
-    expect(res.body.error.message).toMatch(/Latitude must be between|Name is required|Unknown field/);
+    expect(res.body.error.message).toMatch(
+      /Latitude must be between|Name is required|Unknown field/,
+    );
   });
 
   it("answers broken JSON with 400 and an oversize body with 413", async () => {
     const { token } = await signInAs(ctx.app, "field");
     const url = `/api/campaigns/${demoCampaignId}/sites`;
-    const broken = await request(ctx.app).post(url).set(auth(token)).set("Content-Type", "application/json").send('{"name": ');
+    const broken = await request(ctx.app)
+      .post(url)
+      .set(auth(token))
+      .set("Content-Type", "application/json")
+      .send('{"name": ');
     expect(broken.status).toBe(400);
     expect(broken.body.error.code).toBe("bad_request");
-    const huge = await request(ctx.app).post(url).set(auth(token)).send({ ...validSite, notes: "x".repeat(1_100_000) });
+    const huge = await request(ctx.app)
+      .post(url)
+      .set(auth(token))
+      .send({ ...validSite, notes: "x".repeat(1_100_000) });
     expect(huge.status).toBe(413);
     expect(huge.body.error.code).toBe("payload_too_large");
   });
@@ -146,7 +189,10 @@ describe("campaign isolation", () => {
     const responses = [
       await request(ctx.app).get(`${base}/sites`).set(auth(token)),
       await request(ctx.app).post(`${base}/sites`).set(auth(token)).send(validSite),
-      await request(ctx.app).patch(`${base}/sites/${otherSiteId}`).set(auth(token)).send({ baseVersion: 1, name: "x" }),
+      await request(ctx.app)
+        .patch(`${base}/sites/${otherSiteId}`)
+        .set(auth(token))
+        .send({ baseVersion: 1, name: "x" }),
       await request(ctx.app).delete(`${base}/sites/${otherSiteId}`).set(auth(token)),
       await request(ctx.app).get(`${base}/members`).set(auth(token)),
     ];

@@ -13,9 +13,16 @@ let campaignId: string;
 beforeAll(async () => {
   ctx = await createTestContext({ PUBLIC_URL: "http://equipot.test:8080" });
   catcher = await startMailCatcher();
-  worker = createMailWorker(ctx.database.db, catcher.url, "Equipot <no-reply@equipot.test>", pino({ level: "silent" }), 60_000);
+  worker = createMailWorker(
+    ctx.database.db,
+    catcher.url,
+    "Equipot <no-reply@equipot.test>",
+    pino({ level: "silent" }),
+    60_000,
+  );
   const admin = await signInAs(ctx.app, "admin");
-  campaignId = admin.memberships.find((m) => m.campaignName.startsWith("Kestrel"))?.campaignId ?? "";
+  campaignId =
+    admin.memberships.find((m) => m.campaignName.startsWith("Kestrel"))?.campaignId ?? "";
 });
 afterAll(async () => {
   await worker.stop();
@@ -46,7 +53,9 @@ describe("invites", () => {
       password: "a-strong-password",
     });
     expect(accepted.status).toBe(200);
-    expect(accepted.body.memberships).toContainEqual(expect.objectContaining({ campaignId, role: "field" }));
+    expect(accepted.body.memberships).toContainEqual(
+      expect.objectContaining({ campaignId, role: "field" }),
+    );
 
     const again = await withHeader(request(ctx.app).post("/api/invites/accept")).send({
       token: link?.[1],
@@ -67,16 +76,28 @@ describe("invites", () => {
 
   it("keeps the message when the mail server is down and sends it once it is back", async () => {
     const { token } = await signInAs(ctx.app, "admin");
-    const deadWorker = createMailWorker(ctx.database.db, "smtp://127.0.0.1:1", "x@equipot.test", pino({ level: "silent" }), 60_000);
+    const deadWorker = createMailWorker(
+      ctx.database.db,
+      "smtp://127.0.0.1:1",
+      "x@equipot.test",
+      pino({ level: "silent" }),
+      60_000,
+    );
     await request(ctx.app)
       .post(`/api/campaigns/${campaignId}/invites`)
       .set("Authorization", `Bearer ${token}`)
       .send({ email: "later@example.test", role: "reviewer" });
     expect(await deadWorker.drain()).toBe(0);
     await deadWorker.stop();
-    const rows = await ctx.database.pool.query("select attempts, sent_at, last_error from email_outbox where to_address = $1", ["later@example.test"]);
+    const rows = await ctx.database.pool.query(
+      "select attempts, sent_at, last_error from email_outbox where to_address = $1",
+      ["later@example.test"],
+    );
     expect(rows.rows[0]).toMatchObject({ attempts: 1, sent_at: null });
-    await ctx.database.pool.query("update email_outbox set next_attempt_at = now() where to_address = $1", ["later@example.test"]);
+    await ctx.database.pool.query(
+      "update email_outbox set next_attempt_at = now() where to_address = $1",
+      ["later@example.test"],
+    );
     expect(await worker.drain()).toBe(1);
     await catcher.waitFor((m) => m.to.includes("later@example.test"));
   });

@@ -24,7 +24,11 @@ export default async function setup(project: TestProject): Promise<() => void> {
   let adminUrl = adminUrlFromEnv();
   if (!adminUrl) {
     const port = Number(process.env.EQUIPOT_TEST_PG_PORT ?? 54331);
-    cluster = startCluster({ dataDir: join(process.cwd(), ".equipot", "pg-test"), port, durable: false });
+    cluster = startCluster({
+      dataDir: join(process.cwd(), ".equipot", "pg-test"),
+      port,
+      durable: false,
+    });
     adminUrl = cluster.adminUrl("postgres");
   }
   const client = new pg.Client({ connectionString: adminUrl });

@@ -12,5 +12,7 @@ export interface AuditEntry {
 }
 
 export async function recordAudit(q: Queryable, entry: AuditEntry): Promise<void> {
-  await q.insert(auditEvents).values({ ...entry, before: entry.before ?? null, after: entry.after ?? null });
+  await q
+    .insert(auditEvents)
+    .values({ ...entry, before: entry.before ?? null, after: entry.after ?? null });
 }

@@ -5,7 +5,12 @@ import type { Role } from "../../../shared/permissions";
 
 export const listCampaignsOfUser = async (q: Queryable, userId: string) =>
   q
-    .select({ id: campaigns.id, name: campaigns.name, description: campaigns.description, role: memberships.role })
+    .select({
+      id: campaigns.id,
+      name: campaigns.name,
+      description: campaigns.description,
+      role: memberships.role,
+    })
     .from(memberships)
     .innerJoin(campaigns, eq(campaigns.id, memberships.campaignId))
     .where(eq(memberships.userId, userId))
@@ -21,7 +26,14 @@ export const listMembers = async (q: Queryable, campaignId: string) =>
 
 export async function insertInvite(
   q: Queryable,
-  row: { campaignId: string; email: string; role: Role; tokenHash: string; invitedBy: string; expiresAt: Date },
+  row: {
+    campaignId: string;
+    email: string;
+    role: Role;
+    tokenHash: string;
+    invitedBy: string;
+    expiresAt: Date;
+  },
 ) {
   const [inserted] = await q.insert(invites).values(row).returning();
   if (!inserted) throw new Error("insert into invites returned no row");
@@ -33,7 +45,13 @@ export const findOpenInviteForUpdate = async (q: Queryable, tokenHash: string) =
     await q
       .select()
       .from(invites)
-      .where(and(eq(invites.tokenHash, tokenHash), isNull(invites.acceptedAt), gt(invites.expiresAt, sql`now()`)))
+      .where(
+        and(
+          eq(invites.tokenHash, tokenHash),
+          isNull(invites.acceptedAt),
+          gt(invites.expiresAt, sql`now()`),
+        ),
+      )
       .for("update")
       .limit(1)
   )[0];
@@ -42,7 +60,12 @@ export async function markInviteAccepted(q: Queryable, id: string) {
   await q.update(invites).set({ acceptedAt: new Date() }).where(eq(invites.id, id));
 }
 
-export async function upsertMembership(q: Queryable, campaignId: string, userId: string, role: Role) {
+export async function upsertMembership(
+  q: Queryable,
+  campaignId: string,
+  userId: string,
+  role: Role,
+) {
   await q
     .insert(memberships)
     .values({ campaignId, userId, role })

@@ -24,12 +24,25 @@ export async function claimDueEmails(q: Queryable, limit: number) {
 }
 
 export async function markEmailSent(q: Queryable, id: number) {
-  await q.update(emailOutbox).set({ sentAt: new Date(), lastError: null }).where(eq(emailOutbox.id, id));
-}
-
-export async function markEmailFailed(q: Queryable, id: number, attempts: number, error: string, retryInS: number) {
   await q
     .update(emailOutbox)
-    .set({ attempts, lastError: error.slice(0, 500), nextAttemptAt: sql`now() + make_interval(secs => ${retryInS})` })
+    .set({ sentAt: new Date(), lastError: null })
+    .where(eq(emailOutbox.id, id));
+}
+
+export async function markEmailFailed(
+  q: Queryable,
+  id: number,
+  attempts: number,
+  error: string,
+  retryInS: number,
+) {
+  await q
+    .update(emailOutbox)
+    .set({
+      attempts,
+      lastError: error.slice(0, 500),
+      nextAttemptAt: sql`now() + make_interval(secs => ${retryInS})`,
+    })
     .where(eq(emailOutbox.id, id));
 }

@@ -11,7 +11,14 @@ export async function insertRefreshToken(
 
 /** Locks the row so two concurrent refreshes of one token cannot both succeed. */
 export const findRefreshTokenForUpdate = async (q: Queryable, tokenHash: string) =>
-  (await q.select().from(refreshTokens).where(eq(refreshTokens.tokenHash, tokenHash)).for("update").limit(1))[0];
+  (
+    await q
+      .select()
+      .from(refreshTokens)
+      .where(eq(refreshTokens.tokenHash, tokenHash))
+      .for("update")
+      .limit(1)
+  )[0];
 
 export async function markRotated(q: Queryable, id: string) {
   await q.update(refreshTokens).set({ rotatedAt: new Date() }).where(eq(refreshTokens.id, id));

@@ -24,7 +24,13 @@ export const findSiteForUpdate = async (q: Queryable, campaignId: string, id: st
 
 /** Any campaign: used to refuse a client-made id that already belongs elsewhere. */
 export const findSiteAnywhere = async (q: Queryable, id: string) =>
-  (await q.select({ id: sites.id, campaignId: sites.campaignId }).from(sites).where(eq(sites.id, id)).limit(1))[0];
+  (
+    await q
+      .select({ id: sites.id, campaignId: sites.campaignId })
+      .from(sites)
+      .where(eq(sites.id, id))
+      .limit(1)
+  )[0];
 
 export async function insertSite(q: Queryable, row: SiteInsert): Promise<SiteRow> {
   const [inserted] = await q.insert(sites).values(row).returning();
@@ -32,7 +38,11 @@ export async function insertSite(q: Queryable, row: SiteInsert): Promise<SiteRow
   return inserted;
 }
 
-export async function updateSite(q: Queryable, id: string, patch: Partial<SiteInsert>): Promise<SiteRow> {
+export async function updateSite(
+  q: Queryable,
+  id: string,
+  patch: Partial<SiteInsert>,
+): Promise<SiteRow> {
   const [updated] = await q.update(sites).set(patch).where(eq(sites.id, id)).returning();
   if (!updated) throw new Error("update of sites returned no row");
   return updated;

@@ -6,7 +6,12 @@ export const findThrottles = async (q: Queryable, keys: string[]) =>
   q.select().from(authThrottle).where(inArray(authThrottle.key, keys));
 
 /** Counts one failure for the key, restarting the window when it has expired. Returns the new row. */
-export async function recordFailure(q: Queryable, key: string, windowS: number, blockFor: (failures: number) => number) {
+export async function recordFailure(
+  q: Queryable,
+  key: string,
+  windowS: number,
+  blockFor: (failures: number) => number,
+) {
   const rows = await q
     .insert(authThrottle)
     .values({ key, failures: 1 })

@@ -3,14 +3,30 @@ import type { Queryable } from "../client";
 import { campaigns, memberships, users } from "../schema";
 
 export const findUserByEmail = async (q: Queryable, email: string) =>
-  (await q.select().from(users).where(sql`lower(${users.email}) = ${email.toLowerCase()}`).limit(1))[0];
+  (
+    await q
+      .select()
+      .from(users)
+      .where(sql`lower(${users.email}) = ${email.toLowerCase()}`)
+      .limit(1)
+  )[0];
 
 export const findUserById = async (q: Queryable, id: string) =>
-  (await q.select().from(users).where(and(eq(users.id, id), isNull(users.disabledAt))).limit(1))[0];
+  (
+    await q
+      .select()
+      .from(users)
+      .where(and(eq(users.id, id), isNull(users.disabledAt)))
+      .limit(1)
+  )[0];
 
 export async function listMembershipsOfUser(q: Queryable, userId: string) {
   return q
-    .select({ campaignId: memberships.campaignId, campaignName: campaigns.name, role: memberships.role })
+    .select({
+      campaignId: memberships.campaignId,
+      campaignName: campaigns.name,
+      role: memberships.role,
+    })
     .from(memberships)
     .innerJoin(campaigns, eq(campaigns.id, memberships.campaignId))
     .where(eq(memberships.userId, userId))

@@ -4,7 +4,14 @@ import { unauthenticated } from "../../http-errors";
 import { authenticate, requireAuth } from "../../middleware/authenticate";
 import { sameOriginOnly } from "../../middleware/same-origin";
 import { parseInput } from "../../middleware/validate";
-import { describeUser, refresh, signIn, signOut, type AuthDeps, type IssuedSession } from "../../services/auth.service";
+import {
+  describeUser,
+  refresh,
+  signIn,
+  signOut,
+  type AuthDeps,
+  type IssuedSession,
+} from "../../services/auth.service";
 
 export interface AuthRouterDeps extends AuthDeps {
   secureCookies: boolean;
@@ -20,7 +27,12 @@ export function refreshCookieOptions(deps: AuthRouterDeps): CookieOptions {
   };
 }
 
-export function sendSession(res: Response, deps: AuthRouterDeps, issued: IssuedSession, status = 200) {
+export function sendSession(
+  res: Response,
+  deps: AuthRouterDeps,
+  issued: IssuedSession,
+  status = 200,
+) {
   res.cookie(refreshCookieName, issued.refreshToken, refreshCookieOptions(deps));
   res.setHeader("Cache-Control", "no-store");
   res.status(status).json(issued.session);
