@@ -1,0 +1,31 @@
+import { describe, expect, it } from "vitest";
+import { actions, actionsOf, can, roles } from "../../../shared/permissions";
+
+// The role table of DESIGN.md §6, restated here as the expectation the code must meet.
+const expected: Record<string, string[]> = {
+  field: ["campaign.read", "site.write"],
+  logistics: ["campaign.read", "site.write", "site.delete"],
+  geodesist: ["campaign.read", "site.write", "site.delete"],
+  reviewer: ["campaign.read"],
+  admin: [
+    "campaign.read",
+    "site.write",
+    "site.delete",
+    "member.read",
+    "member.manage",
+    "invite.create",
+  ],
+};
+
+describe("permissions", () => {
+  it.each(roles)("gives %s exactly its actions", (role) => {
+    expect(actionsOf(role)).toEqual(expected[role]);
+  });
+
+  it("refuses everything without a role", () => {
+    for (const action of actions) {
+      expect(can(undefined, action)).toBe(false);
+      expect(can(null, action)).toBe(false);
+    }
+  });
+});
