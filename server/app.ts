@@ -17,6 +17,7 @@ import { authRouter, type AuthRouterDeps } from "./routes/auth/auth.router";
 import { campaignsRouter } from "./routes/campaigns/campaigns.router";
 import { healthRouter } from "./routes/health/health.router";
 import { invitesRouter } from "./routes/invites/invites.router";
+import { syncRouter } from "./routes/sync/sync.router";
 import { createTokenService } from "./services/tokens";
 
 export interface AppDeps {
@@ -109,6 +110,7 @@ export function createApp({
     authenticate(tokens),
     campaignsRouter({ db, linkBase: linkBase ?? (() => publicUrl(config)), onMailQueued }),
   );
+  api.use("/sync", authenticate(tokens), syncRouter(db));
   api.use(apiNotFound);
   app.use("/api", api);
 

@@ -1,6 +1,7 @@
 // Drizzle schema: the campaign's record of truth. Migrations in drizzle/ are generated from this file.
 import { sql } from "drizzle-orm";
 import {
+  bigint,
   bigserial,
   doublePrecision,
   index,
@@ -40,6 +41,8 @@ export const campaigns = pgTable("campaigns", {
   name: text("name").notNull(),
   description: text("description").notNull().default(""),
   createdAt: createdAt(),
+  /** The last position handed out in this campaign's change stream (see db/change-seq.ts). */
+  changeSeq: bigint("change_seq", { mode: "number" }).notNull().default(0),
 });
 
 export const memberships = pgTable(
@@ -120,12 +123,13 @@ export const sites = pgTable(
     approxHeightM: doublePrecision("approx_height_m").notNull(),
     notes: text("notes").notNull().default(""),
     version: integer("version").notNull().default(1),
+    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
     createdAt: createdAt(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
     updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
     deletedAt: timestamp("deleted_at", { withTimezone: true }),
   },
-  (t) => [index("sites_campaign_idx").on(t.campaignId)],
+  (t) => [index("sites_change_idx").on(t.campaignId, t.changeSeq)],
 );
 
 export const auditEvents = pgTable(
@@ -134,6 +138,8 @@ export const auditEvents = pgTable(
     id: bigserial("id", { mode: "number" }).primaryKey(),
     campaignId: uuid("campaign_id").references(() => campaigns.id, { onDelete: "cascade" }),
     userId: uuid("user_id").references(() => users.id, { onDelete: "set null" }),
+    /** The sync client (tablet) the change came from, when it came through sync. */
+    clientId: uuid("client_id"),
     action: text("action").notNull(),
     entity: text("entity").notNull(),
     entityId: text("entity_id").notNull(),
@@ -163,4 +169,62 @@ export const emailOutbox = pgTable(
       .on(t.nextAttemptAt)
       .where(sql`${t.sentAt} is null`),
   ],
+);
+
+/** A tablet (or browser profile) registered to a user, with the last mutation id the server applied. */
+export const syncClients = pgTable("sync_clients", {
+  id: uuid("id").primaryKey(),
+  userId: uuid("user_id")
+    .notNull()
+    .references(() => users.id, { onDelete: "cascade" }),
+  label: text("label").notNull().default(""),
+  lastMutationId: bigint("last_mutation_id", { mode: "number" }).notNull().default(0),
+  createdAt: createdAt(),
+  lastSeenAt: timestamp("last_seen_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** Mutations refused at push time, kept whole so that nothing typed in the field is lost. */
+export const syncRejections = pgTable(
+  "sync_rejections",
+  {
+    id: bigserial("id", { mode: "number" }).primaryKey(),
+    clientId: uuid("client_id")
+      .notNull()
+      .references(() => syncClients.id, { onDelete: "cascade" }),
+    userId: uuid("user_id").references(() => users.id, { onDelete: "set null" }),
+    campaignId: uuid("campaign_id"),
+    mutationId: bigint("mutation_id", { mode: "number" }).notNull(),
+    name: text("name").notNull(),
+    args: jsonb("args"),
+    reason: text("reason").notNull(),
+    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("sync_rejections_client_idx").on(t.clientId, t.mutationId)],
+);
+
+/** The same field edited on two sides: both values kept until a person chooses. */
+export const conflicts = pgTable(
+  "conflicts",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    campaignId: uuid("campaign_id")
+      .notNull()
+      .references(() => campaigns.id, { onDelete: "cascade" }),
+    entity: text("entity").notNull(),
+    entityId: uuid("entity_id").notNull(),
+    field: text("field").notNull(),
+    baseValue: jsonb("base_value"),
+    serverValue: jsonb("server_value"),
+    clientValue: jsonb("client_value"),
+    clientId: uuid("client_id"),
+    mutationId: bigint("mutation_id", { mode: "number" }),
+    openedBy: uuid("opened_by").references(() => users.id, { onDelete: "set null" }),
+    openedAt: timestamp("opened_at", { withTimezone: true }).notNull().defaultNow(),
+    resolvedAt: timestamp("resolved_at", { withTimezone: true }),
+    resolvedBy: uuid("resolved_by").references(() => users.id, { onDelete: "set null" }),
+    resolvedValue: jsonb("resolved_value"),
+    version: integer("version").notNull().default(1),
+    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+  },
+  (t) => [index("conflicts_change_idx").on(t.campaignId, t.changeSeq)],
 );

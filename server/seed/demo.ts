@@ -3,6 +3,7 @@
 import { sql } from "drizzle-orm";
 import type { Role } from "../../shared/permissions";
 import type { SiteKind } from "../../shared/schemas/sites";
+import { nextChangeSeq } from "../db/change-seq";
 import type { Db } from "../db/client";
 import { campaigns, memberships, sites, users } from "../db/schema";
 import { hashPassword } from "../services/passwords";
@@ -83,30 +84,25 @@ export async function seedDemo(db: Db, nodeEnv: string): Promise<boolean> {
       .insert(users)
       .values(demoAccounts.map(({ email, name }) => ({ email, name, passwordHash })))
       .returning();
-    await tx
-      .insert(memberships)
-      .values(
-        people.map((person, i) => ({
-          campaignId: campaign.id,
-          userId: person.id,
-          role: demoAccounts[i]?.role ?? "field",
-        })),
-      );
+    await tx.insert(memberships).values(
+      people.map((person, i) => ({
+        campaignId: campaign.id,
+        userId: person.id,
+        role: demoAccounts[i]?.role ?? "field",
+      })),
+    );
     const admin = people.find((p) => p.email.startsWith("admin@"));
     if (admin)
       await tx
         .insert(memberships)
         .values({ campaignId: practice.id, userId: admin.id, role: "admin" });
-    await tx
-      .insert(sites)
-      .values(
-        demoSites.map((site) => ({
-          ...site,
-          id: crypto.randomUUID(),
-          campaignId: campaign.id,
-          updatedBy: admin?.id ?? null,
-        })),
-      );
+    for (const site of demoSites) {
+      const changeSeq = await nextChangeSeq(tx, campaign.id);
+      const id = crypto.randomUUID();
+      await tx
+        .insert(sites)
+        .values({ ...site, id, campaignId: campaign.id, updatedBy: admin?.id ?? null, changeSeq });
+    }
   });
   return true;
 }

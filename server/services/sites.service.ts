@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
 import type { SiteCreateInput, SiteUpdateInput, SiteView } from "../../shared/schemas/sites";
 import type { Db } from "../db/client";
+import { nextChangeSeq } from "../db/change-seq";
 import { recordAudit } from "../db/repositories/audit";
 import {
   findSiteAnywhere,
@@ -32,6 +33,7 @@ export async function createSite(db: Db, scope: Scope, input: CreateFields): Pro
       id,
       campaignId: scope.campaignId,
       updatedBy: scope.userId,
+      changeSeq: await nextChangeSeq(tx, scope.campaignId),
     });
     const view = presentSite(row);
     await recordAudit(tx, {
@@ -65,6 +67,7 @@ export async function editSite(
       version: current.version + 1,
       updatedAt: new Date(),
       updatedBy: scope.userId,
+      changeSeq: await nextChangeSeq(tx, scope.campaignId),
     });
     const after = presentSite(row);
     await recordAudit(tx, {

@@ -10,6 +10,7 @@ export const errorCodes = [
   "payload_too_large",
   "too_many_requests",
   "unavailable",
+  "update_required",
   "internal",
 ] as const;
 export type ErrorCode = (typeof errorCodes)[number];

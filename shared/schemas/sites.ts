@@ -88,3 +88,7 @@ export type SiteView = z.infer<typeof siteView>;
 /** The form's shape: all site fields, no server-owned ones. */
 export const siteFormSchema = z.strictObject(siteFields);
 export type SiteFormValues = z.input<typeof siteFormSchema>;
+
+/** Only the fields a person changed; no defaults, so an absent field is never overwritten. */
+export const sitePatchSchema = siteUpdateInput.omit({ baseVersion: true });
+export type SitePatch = z.infer<typeof sitePatchSchema>;

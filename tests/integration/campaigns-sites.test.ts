@@ -37,6 +37,7 @@ beforeAll(async () => {
     latitudeDeg: 1,
     longitudeDeg: 2,
     approxHeightM: 3,
+    changeSeq: 1,
   });
   const field = await signInAs(ctx.app, "field");
   demoCampaignId = field.memberships[0]?.campaignId ?? "";

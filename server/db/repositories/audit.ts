@@ -4,6 +4,7 @@ import { auditEvents } from "../schema";
 export interface AuditEntry {
   campaignId: string | null;
   userId: string | null;
+  clientId?: string | null;
   action: string;
   entity: string;
   entityId: string;

@@ -1,0 +1,122 @@
+// How each site mutation is applied. Edits merge field by field against the value the client saw:
+// a field nobody else changed takes the client's value; a field changed on both sides keeps the
+// server's value and opens a conflict holding both, for a person to resolve.
+import type { z } from "zod";
+import type { SitePatch } from "../../../shared/schemas/sites";
+import type { mutationSchemas } from "../../../shared/sync/protocol";
+import { nextChangeSeq } from "../../db/change-seq";
+import { recordAudit } from "../../db/repositories/audit";
+import {
+  findSiteAnywhere,
+  findSiteForUpdate,
+  insertSite,
+  updateSite,
+} from "../../db/repositories/sites";
+import { insertConflict } from "../../db/repositories/sync";
+import { presentSite } from "../../presenters/site";
+import { Rejection, sameValue, type ApplyContext, type ApplyOutcome } from "./context";
+
+type Args<N extends keyof typeof mutationSchemas> = z.output<(typeof mutationSchemas)[N]>;
+type SiteField = keyof SitePatch;
+
+const audit = (
+  ctx: ApplyContext,
+  action: string,
+  entityId: string,
+  before: unknown,
+  after: unknown,
+) =>
+  recordAudit(ctx.tx, {
+    campaignId: ctx.campaignId,
+    userId: ctx.userId,
+    clientId: ctx.clientId,
+    action,
+    entity: "site",
+    entityId,
+    before,
+    after,
+  });
+
+export async function applySiteCreate(
+  ctx: ApplyContext,
+  args: Args<"site.create">,
+): Promise<ApplyOutcome> {
+  const existing = await findSiteAnywhere(ctx.tx, args.id);
+  if (existing) throw new Rejection("A site with this id already exists");
+  const row = await insertSite(ctx.tx, {
+    ...args,
+    campaignId: ctx.campaignId,
+    updatedBy: ctx.userId,
+    changeSeq: await nextChangeSeq(ctx.tx, ctx.campaignId),
+  });
+  await audit(ctx, "create", row.id, null, presentSite(row));
+  return { status: "applied" };
+}
+
+export async function applySiteUpdate(
+  ctx: ApplyContext,
+  args: Args<"site.update">,
+): Promise<ApplyOutcome> {
+  const current = await findSiteForUpdate(ctx.tx, ctx.campaignId, args.id);
+  if (!current) throw new Rejection("Site not found");
+  if (current.deletedAt)
+    throw new Rejection("This site was deleted on the server; the edit is kept for recovery");
+  const patch: SitePatch = {};
+  const conflicted: SiteField[] = [];
+  for (const field of Object.keys(args.changes) as SiteField[]) {
+    const mine = args.changes[field];
+    const theirs = current[field];
+    if (sameValue(theirs, mine)) continue;
+    if (sameValue(theirs, args.base[field])) Object.assign(patch, { [field]: mine });
+    else conflicted.push(field);
+  }
+  for (const field of conflicted) {
+    await insertConflict(ctx.tx, {
+      campaignId: ctx.campaignId,
+      entity: "site",
+      entityId: current.id,
+      field,
+      baseValue: args.base[field] ?? null,
+      serverValue: current[field],
+      clientValue: args.changes[field],
+      clientId: ctx.clientId,
+      mutationId: ctx.mutationId,
+      openedBy: ctx.userId,
+      changeSeq: await nextChangeSeq(ctx.tx, ctx.campaignId),
+    });
+  }
+  if (Object.keys(patch).length > 0) {
+    const row = await updateSite(ctx.tx, current.id, {
+      ...patch,
+      version: current.version + 1,
+      updatedAt: new Date(),
+      updatedBy: ctx.userId,
+      changeSeq: await nextChangeSeq(ctx.tx, ctx.campaignId),
+    });
+    await audit(ctx, "update", row.id, presentSite(current), presentSite(row));
+  }
+  if (conflicted.length === 0) return { status: "applied" };
+  return {
+    status: "conflict",
+    message: `Changed on both sides, kept for you to choose: ${conflicted.join(", ")}`,
+  };
+}
+
+export async function applySiteDelete(
+  ctx: ApplyContext,
+  args: Args<"site.delete">,
+): Promise<ApplyOutcome> {
+  const current = await findSiteForUpdate(ctx.tx, ctx.campaignId, args.id);
+  if (!current) throw new Rejection("Site not found");
+  if (current.deletedAt) return { status: "applied", message: "Already deleted" };
+  const now = new Date();
+  const row = await updateSite(ctx.tx, current.id, {
+    deletedAt: now,
+    updatedAt: now,
+    updatedBy: ctx.userId,
+    version: current.version + 1,
+    changeSeq: await nextChangeSeq(ctx.tx, ctx.campaignId),
+  });
+  await audit(ctx, "delete", row.id, presentSite(current), null);
+  return { status: "applied" };
+}

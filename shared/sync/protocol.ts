@@ -1,0 +1,129 @@
+// The sync wire protocol: push mutations in per-client order, pull changes in commit order.
+// Version it: a client with another protocol version is told to update and keeps its outbox.
+import { z } from "zod";
+import type { Action } from "../permissions";
+import { siteCreateInput, sitePatchSchema, siteView } from "../schemas/sites";
+
+export const protocolVersion = 1;
+export const maxPushBatch = 500;
+export const maxPullPage = 1000;
+export const defaultPullPage = 500;
+
+/** Every kind of mutation a client may send, each with its own argument schema. */
+export const mutationSchemas = {
+  "site.create": siteCreateInput.required({ id: true }),
+  "site.update": z
+    .strictObject({
+      id: z.uuid(),
+      // Only the fields the user changed, with the value they saw before changing them (for the merge).
+      changes: sitePatchSchema,
+      base: sitePatchSchema,
+    })
+    .refine((a) => Object.keys(a.changes).every((k) => k in a.base), {
+      message: "base must hold the value seen before each changed field",
+      path: ["base"],
+    }),
+  "site.delete": z.strictObject({ id: z.uuid() }),
+  // A person's choice for one conflicted field; the value is checked by the entity's field schema.
+  "conflict.resolve": z.strictObject({ id: z.uuid(), value: z.unknown() }),
+} as const;
+
+export const mutationNames = Object.keys(mutationSchemas) as [
+  keyof typeof mutationSchemas,
+  ...(keyof typeof mutationSchemas)[],
+];
+export const mutationNameSchema = z.enum(mutationNames);
+export type MutationName = z.infer<typeof mutationNameSchema>;
+export type MutationArgs<N extends MutationName> = z.input<(typeof mutationSchemas)[N]>;
+
+/** The permission each mutation needs, checked again at push time with the user's current role. */
+export const mutationActions: Record<MutationName, Action> = {
+  "site.create": "site.write",
+  "site.update": "site.write",
+  "site.delete": "site.delete",
+  "conflict.resolve": "site.write",
+};
+
+export const mutationEnvelope = z.strictObject({
+  mutationId: z.number().int().positive(),
+  name: mutationNameSchema,
+  // Checked against mutationSchemas[name] when applied, so one bad mutation does not void the batch.
+  args: z.unknown(),
+  createdAt: z.iso.datetime({ offset: true }),
+});
+export type MutationEnvelope = z.infer<typeof mutationEnvelope>;
+
+export const pushRequest = z.strictObject({
+  protocolVersion: z.number().int(),
+  clientId: z.uuid(),
+  campaignId: z.uuid(),
+  mutations: z
+    .array(mutationEnvelope)
+    .max(maxPushBatch, `At most ${maxPushBatch} mutations per push`),
+});
+export type PushRequest = z.infer<typeof pushRequest>;
+
+export const mutationStatuses = ["applied", "duplicate", "conflict", "rejected"] as const;
+export const mutationResult = z.object({
+  mutationId: z.number().int(),
+  status: z.enum(mutationStatuses),
+  message: z.string().optional(),
+});
+export type MutationResult = z.infer<typeof mutationResult>;
+
+export const pushResponse = z.object({
+  results: z.array(mutationResult),
+  lastMutationId: z.number().int(),
+});
+export type PushResponse = z.infer<typeof pushResponse>;
+
+export const syncEntities = ["site", "conflict"] as const;
+export const syncEntitySchema = z.enum(syncEntities);
+export type SyncEntity = z.infer<typeof syncEntitySchema>;
+
+export const conflictView = z.object({
+  id: z.uuid(),
+  entity: z.enum(["site"]),
+  entityId: z.uuid(),
+  field: z.string(),
+  baseValue: z.unknown(),
+  serverValue: z.unknown(),
+  clientValue: z.unknown(),
+  openedAt: z.string(),
+  openedBy: z.uuid().nullable(),
+  resolvedAt: z.string().nullable(),
+  resolvedValue: z.unknown(),
+});
+export type ConflictView = z.infer<typeof conflictView>;
+
+export const changeRecord = z.discriminatedUnion("entity", [
+  z.object({ entity: z.literal("site"), seq: z.number().int(), id: z.uuid(), data: siteView }),
+  z.object({
+    entity: z.literal("conflict"),
+    seq: z.number().int(),
+    id: z.uuid(),
+    data: conflictView,
+  }),
+]);
+export type ChangeRecord = z.infer<typeof changeRecord>;
+
+export const pullQuery = z.strictObject({
+  protocolVersion: z.coerce.number().int(),
+  campaign: z.uuid("campaign must be a campaign id"),
+  clientId: z.uuid("clientId must be a UUID").optional(),
+  cursor: z.coerce.number().int().min(0).default(0),
+  limit: z.coerce.number().int().min(1).max(maxPullPage).default(defaultPullPage),
+});
+
+export const pullResponse = z.object({
+  changes: z.array(changeRecord),
+  cursor: z.number().int(),
+  hasMore: z.boolean(),
+  lastMutationId: z.number().int().nullable(),
+});
+export type PullResponse = z.infer<typeof pullResponse>;
+
+export const registerClientInput = z.strictObject({
+  clientId: z.uuid(),
+  label: z.string().trim().max(120).default(""),
+});
