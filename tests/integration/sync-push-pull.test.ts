@@ -21,14 +21,12 @@ beforeAll(async () => {
     .returning();
   otherCampaignId = other?.id ?? "";
   foreignSiteId = crypto.randomUUID();
-  await ctx.database.db
-    .insert(sites)
-    .values({
-      ...newSite({ id: foreignSiteId, name: "B-only site" }),
-      kind: "depot",
-      campaignId: otherCampaignId,
-      changeSeq: 1,
-    });
+  await ctx.database.db.insert(sites).values({
+    ...newSite({ id: foreignSiteId, name: "B-only site" }),
+    kind: "depot",
+    campaignId: otherCampaignId,
+    changeSeq: 1,
+  });
 });
 afterAll(async () => {
   await ctx.close();
