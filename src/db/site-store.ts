@@ -1,0 +1,97 @@
+// Local writes of sites: the working copy and its outbox entry in one transaction. The promise
+// resolves only after the transaction committed, so "saved" is never shown early.
+import type { SiteFormValues, SitePatch } from "../../shared/schemas/sites";
+import { sitePatchSchema, siteFormSchema } from "../../shared/schemas/sites";
+import type { MutationName } from "../../shared/sync/protocol";
+import type { EquipotDb } from "./database";
+import { takeMutationId } from "./meta";
+import { rebuildSiteViews } from "./site-view";
+
+async function record(
+  db: EquipotDb,
+  campaignId: string,
+  name: MutationName,
+  entityId: string,
+  args: unknown,
+) {
+  await db.transaction("rw", [db.meta, db.outbox, db.serverSites, db.sites], async () => {
+    const mutationId = await takeMutationId(db);
+    await db.outbox.add({
+      mutationId,
+      campaignId,
+      name,
+      args,
+      entityId,
+      createdAt: new Date().toISOString(),
+    });
+    await rebuildSiteViews(db, [entityId]);
+  });
+}
+
+export async function createSiteLocally(
+  db: EquipotDb,
+  campaignId: string,
+  values: SiteFormValues,
+  id = crypto.randomUUID(),
+) {
+  const fields = siteFormSchema.parse(values);
+  await record(db, campaignId, "site.create", id, { id, ...fields });
+  return id;
+}
+
+/** Sends only the fields that changed, each with the value the user saw (for the server's merge). */
+export async function updateSiteLocally(
+  db: EquipotDb,
+  campaignId: string,
+  id: string,
+  values: SitePatch,
+) {
+  const current = await db.sites.get(id);
+  if (!current || current.campaignId !== campaignId)
+    throw new Error("This site is not on this device");
+  const wanted = sitePatchSchema.parse(values);
+  const changes: Record<string, unknown> = {};
+  const base: Record<string, unknown> = {};
+  for (const [field, value] of Object.entries(wanted)) {
+    const seen = current[field as keyof SitePatch];
+    if (value === undefined || value === seen) continue;
+    changes[field] = value;
+    base[field] = seen;
+  }
+  if (Object.keys(changes).length === 0) return false;
+  await record(db, campaignId, "site.update", id, { id, changes, base });
+  return true;
+}
+
+export async function deleteSiteLocally(db: EquipotDb, campaignId: string, id: string) {
+  await record(db, campaignId, "site.delete", id, { id });
+}
+
+export async function resolveConflictLocally(
+  db: EquipotDb,
+  campaignId: string,
+  conflictId: string,
+  value: unknown,
+) {
+  const conflict = await db.conflicts.get(conflictId);
+  if (!conflict) throw new Error("This conflict is not on this device");
+  await db.transaction(
+    "rw",
+    [db.meta, db.outbox, db.serverSites, db.sites, db.conflicts],
+    async () => {
+      const mutationId = await takeMutationId(db);
+      await db.outbox.add({
+        mutationId,
+        campaignId,
+        name: "conflict.resolve",
+        args: { id: conflictId, value },
+        entityId: conflict.entityId,
+        createdAt: new Date().toISOString(),
+      });
+      await db.conflicts.update(conflictId, {
+        resolvedAt: new Date().toISOString(),
+        resolvedValue: value,
+      });
+    },
+  );
+}

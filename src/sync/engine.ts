@@ -1,0 +1,150 @@
+// The sync engine: plain TypeScript, no React. One instance per signed-in user and device.
+// A run pushes the outbox in order, in batches, then pulls every campaign's changes until caught up.
+import { defaultPullPage, protocolVersion } from "../../shared/sync/protocol";
+import type { EquipotDb, OutboxEntry } from "../db/database";
+import { cursorKey, ensureClientId, readMeta, writeMeta } from "../db/meta";
+import { applyPulledPage } from "./apply-pull";
+import { SyncError, type SyncTransport } from "./transport";
+
+export interface SyncStatus {
+  running: boolean;
+  pending: number;
+  oldestPendingAt: string | null;
+  lastSuccessAt: string | null;
+  progress: { done: number; total: number } | null;
+  error: { kind: SyncError["kind"]; message: string } | null;
+}
+
+export type SyncEvent = { type: "status"; status: SyncStatus } | { type: "synced"; pulled: number };
+
+export interface SyncEngineOptions {
+  db: EquipotDb;
+  transport: SyncTransport;
+  campaignIds: () => string[];
+  pushBatch?: number;
+  pullPage?: number;
+  /** Runs `work` while holding a lock shared by every tab (Web Locks in the browser). */
+  exclusive?: <T>(work: () => Promise<T>) => Promise<T>;
+}
+
+const lastSuccessKey = "lastSyncSuccessAt";
+
+/** Consecutive outbox entries of one campaign: one push each, so mutation ids stay contiguous. */
+function batches(entries: OutboxEntry[], size: number): OutboxEntry[][] {
+  const out: OutboxEntry[][] = [];
+  for (const entry of entries) {
+    const current = out.at(-1);
+    if (current && current.length < size && current[0]?.campaignId === entry.campaignId)
+      current.push(entry);
+    else out.push([entry]);
+  }
+  return out;
+}
+
+export function createSyncEngine(options: SyncEngineOptions) {
+  const { db, transport, pushBatch = 200, pullPage = defaultPullPage } = options;
+  const exclusive = options.exclusive ?? (<T>(work: () => Promise<T>) => work());
+  const listeners = new Set<(event: SyncEvent) => void>();
+  let status: SyncStatus = {
+    running: false,
+    pending: 0,
+    oldestPendingAt: null,
+    lastSuccessAt: null,
+    progress: null,
+    error: null,
+  };
+  let current: Promise<void> | undefined;
+
+  const emit = (event: SyncEvent) => listeners.forEach((listener) => listener(event));
+  const setStatus = (patch: Partial<SyncStatus>) => {
+    status = { ...status, ...patch };
+    emit({ type: "status", status });
+  };
+
+  async function refreshCounts(): Promise<void> {
+    const pending = await db.outbox.count();
+    const oldest = await db.outbox.orderBy("mutationId").first();
+    const lastSuccessAt = await readMeta<string | null>(db, lastSuccessKey, null);
+    setStatus({ pending, oldestPendingAt: oldest?.createdAt ?? null, lastSuccessAt });
+  }
+
+  async function pushAll(clientId: string): Promise<void> {
+    const unsent = (await db.outbox.orderBy("mutationId").toArray()).filter((e) => !e.result);
+    const groups = batches(unsent, pushBatch);
+    let done = 0;
+    for (const group of groups) {
+      const campaignId = group[0]?.campaignId ?? "";
+      const mutations = group.map((e) => ({
+        mutationId: e.mutationId,
+        name: e.name,
+        args: e.args,
+        createdAt: e.createdAt,
+      }));
+      const response = await transport.push({ protocolVersion, clientId, campaignId, mutations });
+      await db.transaction("rw", db.outbox, async () => {
+        for (const result of response.results)
+          await db.outbox.update(result.mutationId, { result });
+      });
+      done += group.length;
+      setStatus({ progress: { done, total: unsent.length } });
+    }
+  }
+
+  async function pullCampaign(clientId: string, campaignId: string): Promise<number> {
+    let pulled = 0;
+    for (;;) {
+      const cursor = await readMeta<number>(db, cursorKey(campaignId), 0);
+      const page = await transport.pull({
+        campaign: campaignId,
+        clientId,
+        cursor,
+        limit: pullPage,
+      });
+      await applyPulledPage(db, campaignId, page);
+      pulled += page.changes.length;
+      if (!page.hasMore) return pulled;
+    }
+  }
+
+  async function runOnce(): Promise<void> {
+    setStatus({ running: true, error: null, progress: null });
+    try {
+      const clientId = await ensureClientId(db);
+      await pushAll(clientId);
+      let pulled = 0;
+      for (const campaignId of options.campaignIds())
+        pulled += await pullCampaign(clientId, campaignId);
+      await writeMeta(db, lastSuccessKey, new Date().toISOString());
+      emit({ type: "synced", pulled });
+    } catch (error) {
+      const known =
+        error instanceof SyncError
+          ? error
+          : new SyncError(
+              "Sync failed: the server could not be reached or answered with an error.",
+              "server",
+            );
+      setStatus({ error: { kind: known.kind, message: known.message } });
+      throw known;
+    } finally {
+      await refreshCounts();
+      setStatus({ running: false, progress: null });
+    }
+  }
+
+  return {
+    /** Runs a sync now, or joins the one already running in this tab. */
+    sync(): Promise<void> {
+      current ??= exclusive(runOnce).finally(() => (current = undefined));
+      return current;
+    },
+    refreshCounts,
+    getStatus: () => status,
+    subscribe(listener: (event: SyncEvent) => void): () => void {
+      listeners.add(listener);
+      return () => listeners.delete(listener);
+    },
+  };
+}
+
+export type SyncEngine = ReturnType<typeof createSyncEngine>;
