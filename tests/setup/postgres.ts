@@ -2,6 +2,8 @@
 // migrated template database from which each test file clones its own fresh database.
 import type { TestProject } from "vitest/node";
 import pg from "pg";
+import { rmSync } from "node:fs";
+import { createServer } from "node:net";
 import { join } from "node:path";
 import { startCluster, type Cluster } from "../../scripts/lib/postgres";
 import { applyMigrations } from "../../server/db/client";
@@ -15,6 +17,18 @@ declare module "vitest" {
 
 let cluster: Cluster | undefined;
 
+// Each run gets its own throw-away cluster on a free port, so runs side by side never share state.
+const freePort = () =>
+  new Promise<number>((resolve, reject) => {
+    const server = createServer()
+      .once("error", reject)
+      .listen(0, "127.0.0.1", () => {
+        const address = server.address();
+        const port = typeof address === "object" && address ? address.port : 0;
+        server.close(() => resolve(port));
+      });
+  });
+
 function adminUrlFromEnv(): string | undefined {
   const url = process.env.DATABASE_URL;
   return url ? withDatabase(url, "postgres") : undefined;
@@ -23,12 +37,9 @@ function adminUrlFromEnv(): string | undefined {
 export default async function setup(project: TestProject): Promise<() => void> {
   let adminUrl = adminUrlFromEnv();
   if (!adminUrl) {
-    const port = Number(process.env.EQUIPOT_TEST_PG_PORT ?? 54331);
-    cluster = startCluster({
-      dataDir: join(process.cwd(), ".equipot", "pg-test"),
-      port,
-      durable: false,
-    });
+    const port = await freePort();
+    const dataDir = join(process.cwd(), ".equipot", "pg-test", `run-${process.pid}`);
+    cluster = startCluster({ dataDir, port, durable: false });
     adminUrl = cluster.adminUrl("postgres");
   }
   const client = new pg.Client({ connectionString: adminUrl });
@@ -39,6 +50,9 @@ export default async function setup(project: TestProject): Promise<() => void> {
   await applyMigrations(withDatabase(adminUrl, templateDatabase));
   project.provide("pgAdminUrl", adminUrl);
   return () => {
-    if (cluster?.startedHere) cluster.stop();
+    if (!cluster) return;
+    cluster.stop();
+    rmSync(cluster.dataDir, { recursive: true, force: true });
+    rmSync(`${cluster.dataDir}.password`, { force: true });
   };
 }
