@@ -175,3 +175,10 @@ export function startCluster(options: ClusterOptions): Cluster {
     },
   };
 }
+
+/** Stops a cluster by its data folder, if it is running (used to clean up after killed test runs). */
+export function stopCluster(dataDir: string): void {
+  const binDir = findBinDir();
+  if (binDir && isRunning(binDir, dataDir))
+    runPg(binDir, "pg_ctl", ["-D", dataDir, "-m", "immediate", "-w", "stop"]);
+}

@@ -2,10 +2,10 @@
 // migrated template database from which each test file clones its own fresh database.
 import type { TestProject } from "vitest/node";
 import pg from "pg";
-import { rmSync } from "node:fs";
+import { existsSync, readdirSync, rmSync } from "node:fs";
 import { createServer } from "node:net";
 import { join } from "node:path";
-import { startCluster, type Cluster } from "../../scripts/lib/postgres";
+import { startCluster, stopCluster, type Cluster } from "../../scripts/lib/postgres";
 import { applyMigrations } from "../../server/db/client";
 import { templateDatabase, withDatabase } from "../helpers/admin-url";
 
@@ -29,6 +29,30 @@ const freePort = () =>
       });
   });
 
+const runsDir = join(process.cwd(), ".equipot", "pg-test");
+
+const isAlive = (pid: number) => {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+};
+
+/** A run that was killed leaves its cluster behind: stop and remove those of dead runs. */
+function removeStaleRuns(): void {
+  if (!existsSync(runsDir)) return;
+  for (const entry of readdirSync(runsDir)) {
+    const pid = Number(/^run-(\d+)$/.exec(entry)?.[1]);
+    if (!pid || isAlive(pid)) continue;
+    const dataDir = join(runsDir, entry);
+    stopCluster(dataDir);
+    rmSync(dataDir, { recursive: true, force: true });
+    rmSync(`${dataDir}.password`, { force: true });
+  }
+}
+
 function adminUrlFromEnv(): string | undefined {
   const url = process.env.DATABASE_URL;
   return url ? withDatabase(url, "postgres") : undefined;
@@ -37,8 +61,9 @@ function adminUrlFromEnv(): string | undefined {
 export default async function setup(project: TestProject): Promise<() => void> {
   let adminUrl = adminUrlFromEnv();
   if (!adminUrl) {
+    removeStaleRuns();
     const port = await freePort();
-    const dataDir = join(process.cwd(), ".equipot", "pg-test", `run-${process.pid}`);
+    const dataDir = join(runsDir, `run-${process.pid}`);
     cluster = startCluster({ dataDir, port, durable: false });
     adminUrl = cluster.adminUrl("postgres");
   }
