@@ -2,10 +2,31 @@
 import js from "@eslint/js";
 import tseslint from "typescript-eslint";
 import reactHooks from "eslint-plugin-react-hooks";
-import { importX } from "eslint-plugin-import-x";
+import { createNodeResolver, importX } from "eslint-plugin-import-x";
+import { readdirSync } from "node:fs";
 import globals from "globals";
 
 const restrict = (patterns) => ["error", { patterns }];
+const noServer = {
+  group: ["**/server/**", "../server", "../../server"],
+  message: "The client never imports server code.",
+};
+const features = readdirSync("src/features");
+
+// A feature never imports another feature or src/app: routes in src/app compose them.
+const featureBlocks = features.map((feature) => ({
+  files: [`src/features/${feature}/**/*.{ts,tsx}`],
+  rules: {
+    "no-restricted-imports": restrict([
+      noServer,
+      {
+        regex: `^(\\.\\./)+(features/)?(?!${feature}/)(${features.join("|")})/`,
+        message: "A feature never imports another feature: compose them in src/app.",
+      },
+      { regex: "^(\\.\\./)+app/", message: "Features never import src/app." },
+    ]),
+  },
+}));
 
 export default tseslint.config(
   { ignores: ["node_modules", "dist", ".equipot", "drizzle", "coverage", "test-artifacts"] },
@@ -25,19 +46,29 @@ export default tseslint.config(
         "error",
         { argsIgnorePattern: "^_", varsIgnorePattern: "^_" },
       ],
-      "import-x/no-cycle": "error",
+      "import-x/no-cycle": ["error", { ignoreExternal: true }],
     },
-    settings: { "import-x/resolver": { node: { extensions: [".ts", ".tsx", ".js"] } } },
+    settings: {
+      "import-x/resolver-next": [createNodeResolver({ extensions: [".ts", ".tsx", ".js"] })],
+    },
   },
   {
     files: ["src/**/*.{ts,tsx}"],
     plugins: { "react-hooks": reactHooks },
     rules: {
       ...reactHooks.configs.recommended.rules,
+      "no-restricted-imports": restrict([noServer]),
+    },
+  },
+  ...featureBlocks,
+  {
+    files: ["src/{lib,components,config,db,sync}/**/*.{ts,tsx}"],
+    rules: {
       "no-restricted-imports": restrict([
+        noServer,
         {
-          group: ["**/server/**", "../server", "../../server"],
-          message: "The client never imports server code.",
+          regex: "^(\\.\\./)+(features|app)/",
+          message: "Shared client code never imports features or src/app.",
         },
       ]),
     },

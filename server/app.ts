@@ -45,14 +45,15 @@ const contentSecurityPolicy = {
 
 function staticPwa(dir: string): RequestHandler[] {
   const root = resolve(dir);
-  const noCache = (path: string) =>
-    /(index\.html|sw\.js|registerSW\.js|manifest\.webmanifest)$/.test(path);
+  // Only Vite's content-hashed files under assets/ may be cached for good; everything else
+  // (index.html, sw.js, the manifest, icons) must be revalidated so an update reaches the tablet.
+  const hashed = (path: string) => path.startsWith(join(root, "assets") + "/");
   const serve = express.static(root, {
     index: false,
     setHeaders: (res, path) => {
       res.setHeader(
         "Cache-Control",
-        noCache(path) ? "no-cache" : "public, max-age=31536000, immutable",
+        hashed(path) ? "public, max-age=31536000, immutable" : "no-cache",
       );
     },
   });

@@ -1,0 +1,82 @@
+import { NavLink, Outlet, useOutletContext, useParams } from "react-router-dom";
+import { can, roleLabels, type Role } from "../../../shared/permissions";
+import { LinkButton } from "../../components/button";
+import { Notice } from "../../components/notice";
+import { cx } from "../../lib/cx";
+import { useSession } from "../../lib/use-session";
+import { paths } from "../paths";
+
+export interface CampaignContext {
+  campaignId: string;
+  campaignName: string;
+  role: Role;
+}
+
+export function useCampaign(): CampaignContext {
+  return useOutletContext<CampaignContext>();
+}
+
+const tabClass = ({ isActive }: { isActive: boolean }) =>
+  cx(
+    "inline-flex min-h-touch items-center rounded-t-lg border-2 border-b-0 px-5 font-semibold no-underline",
+    isActive ? "border-line bg-surface" : "border-transparent text-muted hover:text-ink",
+  );
+
+function CampaignNav({ campaign }: { campaign: CampaignContext }) {
+  return (
+    <nav
+      aria-label="Campaign"
+      className="mb-6 flex flex-wrap items-end gap-1 border-b-2 border-line"
+    >
+      <NavLink to={paths.sites(campaign.campaignId)} className={tabClass}>
+        Sites
+      </NavLink>
+      {can(campaign.role, "member.read") && (
+        <NavLink to={paths.members(campaign.campaignId)} className={tabClass}>
+          Members
+        </NavLink>
+      )}
+    </nav>
+  );
+}
+
+/** Resolves the campaign and the person's role in it from the session's memberships. */
+export function CampaignLayout() {
+  const { campaignId = "" } = useParams();
+  const session = useSession();
+  const memberships = session.status === "signed-in" ? session.memberships : [];
+  const membership = memberships.find((m) => m.campaignId === campaignId);
+
+  if (membership === undefined) {
+    return (
+      <div className="flex flex-col gap-4">
+        <Notice tone="attention" title="Not one of your campaigns">
+          This campaign does not exist or you are not a member of it.
+        </Notice>
+        <div>
+          <LinkButton to={paths.campaigns}>Choose a campaign</LinkButton>
+        </div>
+      </div>
+    );
+  }
+  const campaign: CampaignContext = {
+    campaignId,
+    campaignName: membership.campaignName,
+    role: membership.role,
+  };
+  return (
+    <div>
+      <div className="mb-3 flex flex-wrap items-center justify-between gap-x-4">
+        <p>
+          <span className="text-lg font-semibold">{campaign.campaignName}</span>
+          <span className="text-muted"> · your role: {roleLabels[campaign.role]}</span>
+        </p>
+        <LinkButton tone="quiet" to={paths.campaigns} className="px-2">
+          Change campaign
+        </LinkButton>
+      </div>
+      <CampaignNav campaign={campaign} />
+      <Outlet context={campaign} />
+    </div>
+  );
+}

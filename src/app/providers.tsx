@@ -1,0 +1,11 @@
+import type { ReactNode } from "react";
+import { PersistQueryClientProvider } from "@tanstack/react-query-persist-client";
+import { persistOptions, queryClient } from "../lib/query-client";
+
+export function AppProviders({ children }: { children: ReactNode }) {
+  return (
+    <PersistQueryClientProvider client={queryClient} persistOptions={persistOptions}>
+      {children}
+    </PersistQueryClientProvider>
+  );
+}

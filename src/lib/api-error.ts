@@ -1,0 +1,40 @@
+import type { ErrorCode, FieldIssue } from "../../shared/schemas";
+
+/** Codes of the server's error body, plus two the client makes itself. */
+export type ApiErrorCode = ErrorCode | "network" | "bad_response";
+
+/** Every failed API call ends as one of these: the server's error body, typed. */
+export class ApiError extends Error {
+  override readonly name = "ApiError";
+
+  constructor(
+    /** HTTP status; 0 when the server could not be reached at all. */
+    readonly status: number,
+    readonly code: ApiErrorCode,
+    message: string,
+    readonly details: readonly FieldIssue[] = [],
+  ) {
+    super(message);
+  }
+
+  static network(cause: unknown): ApiError {
+    const error = new ApiError(0, "network", "No connection to the Equipot server.");
+    error.cause = cause;
+    return error;
+  }
+
+  get isNetwork(): boolean {
+    return this.code === "network";
+  }
+}
+
+export function isApiError(value: unknown): value is ApiError {
+  return value instanceof ApiError;
+}
+
+/** A message a person can read, whatever was thrown. */
+export function messageOf(error: unknown): string {
+  if (error instanceof ApiError) return error.message;
+  if (error instanceof Error && error.message) return error.message;
+  return "Something went wrong.";
+}

@@ -1,0 +1,95 @@
+// axe checks on the main screens, in each theme: no serious or critical violations. Screenshots of
+// each theme are kept to be looked at.
+import { AxeBuilder } from "@axe-core/playwright";
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import type { Browser, Page } from "playwright-core";
+import { launchBrowser, screenshot, screenshotOnFailure, viewports } from "../helpers/browser";
+import { startTestServer, type TestServer } from "../helpers/server";
+import { openDemoSites } from "./flows";
+
+let server: TestServer;
+let browser: Browser;
+let page: Page;
+
+beforeAll(async () => {
+  server = await startTestServer();
+  browser = await launchBrowser();
+  // axe needs a page from an explicit context.
+  const context = await browser.newContext({ viewport: viewports.tabletLandscape });
+  page = await context.newPage();
+});
+
+screenshotOnFailure(() => page);
+
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+async function seriousViolations(target: Page): Promise<string[]> {
+  const results = await new AxeBuilder({ page: target })
+    .withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa", "best-practice"])
+    .analyze();
+  return results.violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .map((v) => `${v.id} (${v.impact}): ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
+}
+
+async function chooseLook(target: Page, label: string) {
+  await target.getByRole("button", { name: "Settings" }).click();
+  await target.getByRole("radio", { name: new RegExp(label) }).check();
+  await target.keyboard.press("Escape");
+}
+
+const looks = [
+  { label: "Paper", theme: "paper" },
+  { label: "Dark", theme: "dark" },
+  { label: "High contrast", theme: "contrast" },
+] as const;
+
+describe.each(looks)("in the $label look", ({ label, theme }) => {
+  test("sign-in, sites and the site form pass axe", async () => {
+    await page.context().clearCookies();
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.evaluate(() => localStorage.removeItem("equipot.session.v1"));
+    await page.reload();
+    await chooseLook(page, label);
+    expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe(theme);
+    await page.getByRole("region", { name: "Demo accounts" }).waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, `theme-${theme}-sign-in-1024x768`);
+
+    await openDemoSites(page, server.baseUrl, "admin");
+    // The choice is remembered across pages and reloads.
+    expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe(theme);
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, `theme-${theme}-sites-1024x768`);
+
+    await page.getByRole("link", { name: "Add site" }).click();
+    await page.getByRole("button", { name: "Add site" }).click();
+    await page.locator('[aria-invalid="true"]').first().waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, `theme-${theme}-site-form-1024x768`);
+
+    await page.goto(page.url().replace(/\/sites\/new$/, "/members"));
+    await page.getByRole("table", { name: "Members of this campaign" }).waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
+    await page.getByRole("button", { name: "Sign out" }).click();
+    await page.getByRole("heading", { name: "Sign in" }).waitFor();
+  });
+});
+
+test("every button and link on the sites screen is at least 48 px tall", async () => {
+  await page.setViewportSize(viewports.tabletPortrait);
+  await openDemoSites(page, server.baseUrl, "admin");
+  const small = await page.evaluate(() =>
+    [...document.querySelectorAll("main a, main button, header a, header button, input, select")]
+      .map((element) => ({
+        name: element.textContent?.trim() ?? "",
+        box: element.getBoundingClientRect(),
+      }))
+      .filter(({ box }) => box.height < 47.5 || box.width < 47.5)
+      .map(({ name, box }) => `${name} ${Math.round(box.width)}×${Math.round(box.height)}`),
+  );
+  expect(small).toEqual([]);
+});

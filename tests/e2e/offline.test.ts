@@ -1,0 +1,72 @@
+// After one online visit the app opens offline: the shell from the service worker, the session
+// from what this device remembers, and the sites from the persisted query cache.
+import { afterAll, beforeAll, expect, test } from "vitest";
+import {
+  launchProfile,
+  screenshot,
+  screenshotOnFailure,
+  viewports,
+  type Profile,
+} from "../helpers/browser";
+import { startTestServer, type TestServer } from "../helpers/server";
+import { demoCampaignName, demoSiteNames, expectSitesListed, openDemoSites } from "./flows";
+
+let server: TestServer;
+let profile: Profile;
+
+beforeAll(async () => {
+  server = await startTestServer();
+  profile = await launchProfile({ viewport: viewports.tabletLandscape });
+});
+
+screenshotOnFailure(() => profile?.context.pages()[0]);
+
+afterAll(async () => {
+  await profile?.close();
+  await server?.stop();
+});
+
+test("signed in once online, the app reopens offline with the cached sites", async () => {
+  const page = profile.context.pages()[0] ?? (await profile.context.newPage());
+  await openDemoSites(page, server.baseUrl, "field");
+  const sitesUrl = page.url();
+
+  // The service worker must control the page, and the query cache must be on disk.
+  await page.evaluate(async () => {
+    await navigator.serviceWorker.ready;
+  });
+  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
+  // Wait for the site list itself (the campaign's description also names the sites).
+  await page.waitForFunction(() => {
+    const raw = localStorage.getItem("equipot.query-cache.v1") ?? "";
+    return raw.includes('\\"sites\\",\\"list\\"') && raw.includes("Salt spray");
+  });
+  expect(await page.evaluate(() => localStorage.getItem("equipot.session.v1"))).toContain(
+    "field@demo.equipot.test",
+  );
+
+  await profile.context.setOffline(true);
+  await page.reload();
+  await page.getByRole("heading", { name: "Sites", exact: true }).waitFor();
+  const status = page.getByRole("status").filter({ hasText: "Offline" });
+  await status.waitFor();
+  await expectSitesListed(page, demoSiteNames);
+  expect(await page.getByText("Mira Castell").count()).toBeGreaterThan(0);
+  expect(await page.getByText("Offline copy").count()).toBe(1);
+  await screenshot(page, "offline-sites-1024x768");
+
+  // Other screens open offline too: the picker from the cache, a deep link from the shell.
+  await page.getByRole("link", { name: "Change campaign" }).click();
+  await page.getByRole("link", { name: new RegExp(demoCampaignName) }).waitFor();
+  await page.goto(`${sitesUrl}/new`);
+  await page.getByRole("heading", { name: "Add a site" }).waitFor();
+  await page.setViewportSize(viewports.tabletPortrait);
+  await page.goto(sitesUrl);
+  await expectSitesListed(page, demoSiteNames);
+  await screenshot(page, "offline-sites-800x1280");
+
+  // Back online: the remembered session is confirmed with the server again.
+  await profile.context.setOffline(false);
+  await page.getByRole("status").filter({ hasText: "Online" }).waitFor({ timeout: 15_000 });
+  expect(await page.getByRole("status").filter({ hasText: "Offline" }).count()).toBe(0);
+});

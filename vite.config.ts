@@ -1,0 +1,82 @@
+import { defineConfig } from "vite";
+import react from "@vitejs/plugin-react";
+import tailwindcss from "@tailwindcss/vite";
+import { VitePWA } from "vite-plugin-pwa";
+
+// The dev server proxies the API so that the browser sees one origin, as it does in production
+// where the Express server serves dist/ and /api on the same port.
+const apiTarget = process.env.EQUIPOT_API_TARGET ?? "http://127.0.0.1:8080";
+
+// The paper theme's page and primary colours (tailwind.config.ts `palettes.paper`), for the
+// installed app's splash screen and title bar.
+const paperColour = "#F5EFE2";
+const primaryColour = "#12524E";
+
+export default defineConfig({
+  plugins: [
+    react(),
+    tailwindcss(),
+    VitePWA({
+      strategies: "generateSW",
+      // "prompt": an update waits until the person chooses to reload, so a half-filled form is
+      // never lost to an automatic reload. clientsClaim lets the very first worker take control.
+      registerType: "prompt",
+      injectRegister: false,
+      manifestFilename: "manifest.webmanifest",
+      manifest: {
+        id: "/",
+        name: "Equipot",
+        short_name: "Equipot",
+        description:
+          "Field, logistics and geodesy work for transportable optical clock campaigns, offline first.",
+        start_url: "/",
+        scope: "/",
+        display: "standalone",
+        orientation: "any",
+        background_color: paperColour,
+        theme_color: primaryColour,
+        icons: [
+          { src: "/icons/icon-192.png", sizes: "192x192", type: "image/png", purpose: "any" },
+          { src: "/icons/icon-512.png", sizes: "512x512", type: "image/png", purpose: "any" },
+          {
+            src: "/icons/icon-maskable-512.png",
+            sizes: "512x512",
+            type: "image/png",
+            purpose: "maskable",
+          },
+          { src: "/icons/icon.svg", sizes: "any", type: "image/svg+xml", purpose: "any" },
+        ],
+      },
+      workbox: {
+        globPatterns: ["**/*.{js,mjs,css,html,woff2,svg,png,webmanifest}"],
+        navigateFallback: "/index.html",
+        // API calls must reach the network (or fail): never answer them with the app shell.
+        navigateFallbackDenylist: [/^\/api(\/|$)/],
+        clientsClaim: true,
+        skipWaiting: false,
+        cleanupOutdatedCaches: true,
+      },
+    }),
+  ],
+  server: {
+    proxy: { "/api": { target: apiTarget, changeOrigin: false } },
+  },
+  build: {
+    outDir: "dist",
+    sourcemap: true,
+    rolldownOptions: {
+      output: {
+        // Libraries change less often than the app: separate chunks keep updates small.
+        codeSplitting: {
+          groups: [
+            {
+              name: "react",
+              test: /node_modules[\\/](react|react-dom|scheduler|react-router)[\\/]/,
+            },
+            { name: "vendor", test: /node_modules[\\/]/ },
+          ],
+        },
+      },
+    },
+  },
+});
