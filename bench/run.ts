@@ -1,0 +1,21 @@
+// `npm run bench`: every benchmark, bounded in time, loopback only. Prints one table and writes
+// bench/results.json with the machine it ran on. Figures are medians; ratios are against baselines
+// measured in the same run.
+import { writeFileSync } from "node:fs";
+import { cpus, totalmem } from "node:os";
+import { runScienceBench } from "./science";
+
+const machine = {
+  cpu: cpus()[0]?.model ?? "unknown",
+  cores: cpus().length,
+  memoryGiB: Math.round(totalmem() / 2 ** 30),
+  node: process.version,
+  at: new Date().toISOString(),
+};
+
+const science = await runScienceBench();
+writeFileSync("bench/results.json", JSON.stringify({ machine, science }, null, 2));
+console.log(
+  `\nMachine: ${machine.cpu}, ${machine.cores} cores, ${machine.memoryGiB} GiB, Node ${machine.node}`,
+);
+console.log("Results written to bench/results.json");
