@@ -4,6 +4,7 @@ import cookieParser from "cookie-parser";
 import express, { type Express, type RequestHandler } from "express";
 import helmet from "helmet";
 import { existsSync } from "node:fs";
+import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import type { Logger } from "pino";
 import { pinoHttp } from "pino-http";
@@ -19,6 +20,8 @@ import { healthRouter } from "./routes/health/health.router";
 import { invitesRouter } from "./routes/invites/invites.router";
 import { syncRouter } from "./routes/sync/sync.router";
 import { createTokenService } from "./services/tokens";
+import { createDiskStorage } from "./storage/disk";
+import type { Storage } from "./storage/storage";
 
 export interface AppDeps {
   config: Config;
@@ -27,6 +30,8 @@ export interface AppDeps {
   onMailQueued?: () => void;
   /** Where links in e-mails point; known only after listen() when the port is chosen by the OS. */
   linkBase?: () => string;
+  /** File storage, built by startServer from the configuration; by default a temp folder. */
+  storage?: Storage;
 }
 
 const contentSecurityPolicy = {
@@ -71,6 +76,7 @@ export function createApp({
   log,
   onMailQueued = () => undefined,
   linkBase,
+  storage = createDiskStorage(join(tmpdir(), `equipot-files-${process.pid}`)),
 }: AppDeps): Express {
   const app = express();
   app.disable("x-powered-by");
@@ -109,7 +115,12 @@ export function createApp({
   api.use(
     "/campaigns",
     authenticate(tokens),
-    campaignsRouter({ db, linkBase: linkBase ?? (() => publicUrl(config)), onMailQueued }),
+    campaignsRouter({
+      db,
+      linkBase: linkBase ?? (() => publicUrl(config)),
+      onMailQueued,
+      storage,
+    }),
   );
   api.use("/sync", authenticate(tokens), syncRouter(db));
   api.use(apiNotFound);

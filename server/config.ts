@@ -23,12 +23,35 @@ const configSchema = z.object({
     .min(3600)
     .default(30 * 24 * 3600),
   DEMO: z.enum(["true", "false"]).default("false"),
+  STORAGE_DRIVER: z.enum(["disk", "s3"]).default("disk"),
+  STORAGE_DIR: z.string().min(1).default(".equipot/files"),
+  S3_ENDPOINT: z.url("S3_ENDPOINT must be a URL such as http://127.0.0.1:9000").optional(),
+  S3_REGION: z.string().min(1).optional(),
+  S3_BUCKET: z.string().min(1).optional(),
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  S3_FORCE_PATH_STYLE: z.enum(["true", "false"]).default("false"),
+});
+
+const s3Required = ["S3_REGION", "S3_BUCKET", "S3_ACCESS_KEY_ID", "S3_SECRET_ACCESS_KEY"] as const;
+
+// The S3 variables are optional for the disk driver but each one is needed for s3.
+const configWithStorage = configSchema.superRefine((config, ctx) => {
+  if (config.STORAGE_DRIVER !== "s3") return;
+  for (const name of s3Required) {
+    if (!config[name])
+      ctx.addIssue({
+        code: "custom",
+        path: [name],
+        message: `${name} is required when STORAGE_DRIVER=s3`,
+      });
+  }
 });
 
 export type Config = z.infer<typeof configSchema>;
 
 export function parseConfig(env: NodeJS.ProcessEnv = process.env): Config {
-  const result = configSchema.safeParse(env);
+  const result = configWithStorage.safeParse(env);
   if (!result.success) {
     const lines = result.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
     throw new Error(`Equipot cannot start, the configuration is invalid:\n${lines.join("\n")}`);

@@ -6,6 +6,7 @@ import { parseConfig, publicUrl, type Config } from "./config";
 import { connect } from "./db/client";
 import { createLogger } from "./logger";
 import { createMailWorker, type MailWorker } from "./mail/mail-worker";
+import { createStorage } from "./storage/create-storage";
 
 export interface RunningServer {
   url: string;
@@ -15,6 +16,8 @@ export interface RunningServer {
 
 export async function startServer(config: Config): Promise<RunningServer> {
   const log = createLogger(config);
+  const storage = await createStorage(config);
+  log.info({ driver: config.STORAGE_DRIVER }, "file storage ready");
   const database = connect(config.DATABASE_URL);
   const mail = config.SMTP_URL
     ? createMailWorker(database.db, config.SMTP_URL, config.MAIL_FROM, log)
@@ -28,6 +31,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
     log,
     onMailQueued: () => mail?.kick(),
     linkBase,
+    storage,
   });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.PORT, config.HOST, () => resolve(s)).on("error", reject);

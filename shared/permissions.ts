@@ -9,6 +9,7 @@ export const actions = [
   "member.read",
   "member.manage",
   "invite.create",
+  "attachment.write",
 ] as const;
 export type Action = (typeof actions)[number];
 
@@ -19,6 +20,7 @@ const table: Record<Action, readonly Role[]> = {
   "member.read": ["admin"],
   "member.manage": ["admin"],
   "invite.create": ["admin"],
+  "attachment.write": ["field", "logistics", "geodesist", "admin"],
 };
 
 export function can(role: Role | undefined | null, action: Action): boolean {

@@ -3,6 +3,7 @@ import { sql } from "drizzle-orm";
 import {
   bigint,
   bigserial,
+  check,
   doublePrecision,
   index,
   integer,
@@ -227,4 +228,30 @@ export const conflicts = pgTable(
     changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
   },
   (t) => [index("conflicts_change_idx").on(t.campaignId, t.changeSeq)],
+);
+
+/** Files stored content-addressed per campaign; the row is written only after its object is stored. */
+export const attachments = pgTable(
+  "attachments",
+  {
+    campaignId: uuid("campaign_id")
+      .notNull()
+      .references(() => campaigns.id, { onDelete: "cascade" }),
+    /** SHA-256 of the bytes as 64 lowercase hex digits, recomputed by the server. */
+    sha256: text("sha256").notNull(),
+    /** Decided from the bytes, never taken from the request. */
+    contentType: text("content_type").notNull(),
+    sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
+    /** Generated from campaign and hash, never from a name the user supplied. */
+    storageKey: text("storage_key").notNull(),
+    /** Sanitised, for display only. */
+    originalName: text("original_name"),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    primaryKey({ columns: [t.campaignId, t.sha256] }),
+    check("attachments_sha256_hex", sql`${t.sha256} ~ '^[0-9a-f]{64}$'`),
+    check("attachments_size_nonnegative", sql`${t.sizeBytes} >= 0`),
+  ],
 );

@@ -10,6 +10,7 @@ export const errorCodes = [
   "payload_too_large",
   "too_many_requests",
   "unavailable",
+  "storage_full",
   "update_required",
   "internal",
 ] as const;

@@ -3,3 +3,4 @@ export * from "./errors";
 export * from "./auth";
 export * from "./campaigns";
 export * from "./sites";
+export * from "./attachments";

@@ -6,16 +6,24 @@ import { requireAuth } from "../../middleware/authenticate";
 import { campaignMember, requireAction, scope } from "../../middleware/authorize";
 import { parseInput } from "../../middleware/validate";
 import { createInvite } from "../../services/invites.service";
+import type { Storage } from "../../storage/storage";
+import { attachmentsRouter } from "../attachments/attachments.router";
 import { sitesRouter } from "../sites/sites.router";
 
 export interface CampaignsRouterDeps {
   db: Db;
   linkBase: () => string;
   onMailQueued: () => void;
+  storage: Storage;
 }
 
 /** Mounted under /api/campaigns after authentication. */
-export function campaignsRouter({ db, linkBase, onMailQueued }: CampaignsRouterDeps): Router {
+export function campaignsRouter({
+  db,
+  linkBase,
+  onMailQueued,
+  storage,
+}: CampaignsRouterDeps): Router {
   const router = Router();
 
   router.get("/", async (req, res) => {
@@ -36,5 +44,6 @@ export function campaignsRouter({ db, linkBase, onMailQueued }: CampaignsRouterD
   });
 
   router.use("/:campaignId/sites", sitesRouter(db));
+  router.use("/:campaignId/attachments", attachmentsRouter({ db, storage }));
   return router;
 }

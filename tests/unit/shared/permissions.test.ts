@@ -3,9 +3,9 @@ import { actions, actionsOf, can, roles } from "../../../shared/permissions";
 
 // The role table of DESIGN.md §6, restated here as the expectation the code must meet.
 const expected: Record<string, string[]> = {
-  field: ["campaign.read", "site.write"],
-  logistics: ["campaign.read", "site.write", "site.delete"],
-  geodesist: ["campaign.read", "site.write", "site.delete"],
+  field: ["campaign.read", "site.write", "attachment.write"],
+  logistics: ["campaign.read", "site.write", "site.delete", "attachment.write"],
+  geodesist: ["campaign.read", "site.write", "site.delete", "attachment.write"],
   reviewer: ["campaign.read"],
   admin: [
     "campaign.read",
@@ -14,6 +14,7 @@ const expected: Record<string, string[]> = {
     "member.read",
     "member.manage",
     "invite.create",
+    "attachment.write",
   ],
 };
 
