@@ -29,7 +29,17 @@ const featureBlocks = features.map((feature) => ({
 }));
 
 export default tseslint.config(
-  { ignores: ["node_modules", "dist", ".equipot", "drizzle", "coverage", "test-artifacts"] },
+  {
+    ignores: [
+      "node_modules",
+      "dist",
+      ".equipot",
+      "drizzle",
+      "coverage",
+      "test-artifacts",
+      "bench/.build",
+    ],
+  },
   js.configs.recommended,
   ...tseslint.configs.strict,
   {

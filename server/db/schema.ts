@@ -255,3 +255,52 @@ export const attachments = pgTable(
     check("attachments_size_nonnegative", sql`${t.sizeBytes} >= 0`),
   ],
 );
+
+/** A transport crate with the limits its contents must stay within. */
+export const crates = pgTable(
+  "crates",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: uuid("campaign_id")
+      .notNull()
+      .references(() => campaigns.id, { onDelete: "cascade" }),
+    label: text("label").notNull(),
+    contents: text("contents").notNull(),
+    weightKg: doublePrecision("weight_kg").notNull(),
+    maxShockG: doublePrecision("max_shock_g").notNull(),
+    temperatureMinC: doublePrecision("temperature_min_c").notNull(),
+    temperatureMaxC: doublePrecision("temperature_max_c").notNull(),
+    notes: text("notes").notNull().default(""),
+    version: integer("version").notNull().default(1),
+    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
+    deletedAt: timestamp("deleted_at", { withTimezone: true }),
+  },
+  (t) => [index("crates_change_idx").on(t.campaignId, t.changeSeq)],
+);
+
+/** A surveyed mark of the national height network, with its published height. */
+export const benchmarks = pgTable(
+  "benchmarks",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: uuid("campaign_id")
+      .notNull()
+      .references(() => campaigns.id, { onDelete: "cascade" }),
+    code: text("code").notNull(),
+    description: text("description").notNull().default(""),
+    latitudeDeg: doublePrecision("latitude_deg").notNull(),
+    longitudeDeg: doublePrecision("longitude_deg").notNull(),
+    heightM: doublePrecision("height_m").notNull(),
+    heightSigmaM: doublePrecision("height_sigma_m").notNull(),
+    heightSystem: text("height_system").notNull(),
+    source: text("source").notNull().default(""),
+    version: integer("version").notNull().default(1),
+    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
+    deletedAt: timestamp("deleted_at", { withTimezone: true }),
+  },
+  (t) => [index("benchmarks_change_idx").on(t.campaignId, t.changeSeq)],
+);

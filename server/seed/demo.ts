@@ -5,7 +5,8 @@ import type { Role } from "../../shared/permissions";
 import type { SiteKind } from "../../shared/schemas/sites";
 import { nextChangeSeq } from "../db/change-seq";
 import type { Db } from "../db/client";
-import { campaigns, memberships, sites, users } from "../db/schema";
+import { benchmarks, campaigns, crates, memberships, sites, users } from "../db/schema";
+import { demoBenchmarks, demoCrates } from "./demo-scenario";
 import { hashPassword } from "../services/passwords";
 
 export const demoPassword = "equipot-demo";
@@ -102,6 +103,31 @@ export async function seedDemo(db: Db, nodeEnv: string): Promise<boolean> {
       await tx
         .insert(sites)
         .values({ ...site, id, campaignId: campaign.id, updatedBy: admin?.id ?? null, changeSeq });
+    }
+    const updatedBy = admin?.id ?? null;
+    for (const crate of demoCrates) {
+      const changeSeq = await nextChangeSeq(tx, campaign.id);
+      await tx
+        .insert(crates)
+        .values({
+          ...crate,
+          id: crypto.randomUUID(),
+          campaignId: campaign.id,
+          updatedBy,
+          changeSeq,
+        });
+    }
+    for (const benchmark of demoBenchmarks) {
+      const changeSeq = await nextChangeSeq(tx, campaign.id);
+      await tx
+        .insert(benchmarks)
+        .values({
+          ...benchmark,
+          id: crypto.randomUUID(),
+          campaignId: campaign.id,
+          updatedBy,
+          changeSeq,
+        });
     }
   });
   return true;

@@ -4,3 +4,5 @@ export * from "./auth";
 export * from "./campaigns";
 export * from "./sites";
 export * from "./attachments";
+export * from "./crates";
+export * from "./benchmarks";

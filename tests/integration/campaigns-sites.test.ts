@@ -224,3 +224,37 @@ describe("campaign isolation", () => {
     expect(JSON.stringify(res.body)).not.toContain("Hidden B site");
   });
 });
+
+describe("demo crates and benchmarks", () => {
+  it("lists the demo campaign's crates with their limits and benchmarks with their heights", async () => {
+    const { token } = await signInAs(ctx.app, "field");
+    const crates = await request(ctx.app)
+      .get(`/api/campaigns/${demoCampaignId}/crates`)
+      .set(auth(token));
+    expect(crates.status).toBe(200);
+    expect(crates.body.crates.length).toBeGreaterThanOrEqual(3);
+    for (const crate of crates.body.crates) {
+      expect(crate.maxShockG).toBeGreaterThan(0);
+      expect(crate.temperatureMinC).toBeLessThan(crate.temperatureMaxC);
+    }
+    const marks = await request(ctx.app)
+      .get(`/api/campaigns/${demoCampaignId}/benchmarks`)
+      .set(auth(token));
+    expect(marks.status).toBe(200);
+    expect(marks.body.benchmarks.length).toBeGreaterThanOrEqual(3);
+    expect(marks.body.benchmarks[0]).toMatchObject({
+      heightSigmaM: expect.any(Number),
+      heightSystem: expect.any(String),
+    });
+  });
+
+  it("hides them from a member of another campaign", async () => {
+    const { token } = await signInAs(ctx.app, "admin");
+    for (const what of ["crates", "benchmarks"]) {
+      const res = await request(ctx.app)
+        .get(`/api/campaigns/${otherCampaignId}/${what}`)
+        .set(auth(token));
+      expect(res.status).toBe(404);
+    }
+  });
+});

@@ -8,6 +8,7 @@ import { parseInput } from "../../middleware/validate";
 import { createInvite } from "../../services/invites.service";
 import type { Storage } from "../../storage/storage";
 import { attachmentsRouter } from "../attachments/attachments.router";
+import { cratesBenchmarksRouter } from "../crates/crates-benchmarks.router";
 import { sitesRouter } from "../sites/sites.router";
 
 export interface CampaignsRouterDeps {
@@ -44,6 +45,7 @@ export function campaignsRouter({
   });
 
   router.use("/:campaignId/sites", sitesRouter(db));
+  router.use("/:campaignId", cratesBenchmarksRouter(db));
   router.use("/:campaignId/attachments", attachmentsRouter({ db, storage }));
   return router;
 }

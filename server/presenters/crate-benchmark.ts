@@ -1,0 +1,32 @@
+import type { BenchmarkView } from "../../shared/schemas/benchmarks";
+import type { CrateView } from "../../shared/schemas/crates";
+import type { BenchmarkRow, CrateRow } from "../db/repositories/crates-benchmarks";
+
+export const presentCrate = (row: CrateRow): CrateView => ({
+  id: row.id,
+  campaignId: row.campaignId,
+  label: row.label,
+  contents: row.contents,
+  weightKg: row.weightKg,
+  maxShockG: row.maxShockG,
+  temperatureMinC: row.temperatureMinC,
+  temperatureMaxC: row.temperatureMaxC,
+  notes: row.notes,
+  version: row.version,
+  updatedAt: row.updatedAt.toISOString(),
+});
+
+export const presentBenchmark = (row: BenchmarkRow): BenchmarkView => ({
+  id: row.id,
+  campaignId: row.campaignId,
+  code: row.code,
+  description: row.description,
+  latitudeDeg: row.latitudeDeg,
+  longitudeDeg: row.longitudeDeg,
+  heightM: row.heightM,
+  heightSigmaM: row.heightSigmaM,
+  heightSystem: row.heightSystem,
+  source: row.source,
+  version: row.version,
+  updatedAt: row.updatedAt.toISOString(),
+});
