@@ -107,27 +107,23 @@ export async function seedDemo(db: Db, nodeEnv: string): Promise<boolean> {
     const updatedBy = admin?.id ?? null;
     for (const crate of demoCrates) {
       const changeSeq = await nextChangeSeq(tx, campaign.id);
-      await tx
-        .insert(crates)
-        .values({
-          ...crate,
-          id: crypto.randomUUID(),
-          campaignId: campaign.id,
-          updatedBy,
-          changeSeq,
-        });
+      await tx.insert(crates).values({
+        ...crate,
+        id: crypto.randomUUID(),
+        campaignId: campaign.id,
+        updatedBy,
+        changeSeq,
+      });
     }
     for (const benchmark of demoBenchmarks) {
       const changeSeq = await nextChangeSeq(tx, campaign.id);
-      await tx
-        .insert(benchmarks)
-        .values({
-          ...benchmark,
-          id: crypto.randomUUID(),
-          campaignId: campaign.id,
-          updatedBy,
-          changeSeq,
-        });
+      await tx.insert(benchmarks).values({
+        ...benchmark,
+        id: crypto.randomUUID(),
+        campaignId: campaign.id,
+        updatedBy,
+        changeSeq,
+      });
     }
   });
   return true;
