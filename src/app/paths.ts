@@ -12,4 +12,6 @@ export const paths = {
   editSite: (campaignId: string, siteId: string) =>
     `${campaign(campaignId)}/sites/${encodeURIComponent(siteId)}/edit`,
   members: (campaignId: string) => `${campaign(campaignId)}/members`,
+  conflicts: (campaignId: string) => `${campaign(campaignId)}/conflicts`,
+  device: "/device",
 } as const;

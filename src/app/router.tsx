@@ -4,6 +4,8 @@ import { PublicLayout } from "./layouts/public-layout";
 import { SignedInLayout } from "./layouts/signed-in-layout";
 import { paths } from "./paths";
 import { CampaignsRoute } from "./routes/campaigns-route";
+import { ConflictsRoute } from "./routes/conflicts-route";
+import { DeviceRoute } from "./routes/device-route";
 import { InviteRoute } from "./routes/invite-route";
 import { MembersRoute } from "./routes/members-route";
 import { NotFoundRoute } from "./routes/not-found-route";
@@ -34,6 +36,7 @@ export const router = createBrowserRouter([
         children: [
           { index: true, element: <Navigate to={paths.campaigns} replace /> },
           { path: "campaigns", element: <CampaignsRoute /> },
+          { path: "device", element: <DeviceRoute /> },
           {
             path: "campaigns/:campaignId",
             element: <CampaignLayout />,
@@ -43,6 +46,7 @@ export const router = createBrowserRouter([
               { path: "sites/new", element: <SiteNewRoute /> },
               { path: "sites/:siteId/edit", element: <SiteEditRoute /> },
               { path: "members", element: <MembersRoute /> },
+              { path: "conflicts", element: <ConflictsRoute /> },
             ],
           },
           { path: "*", element: <NotFoundRoute /> },

@@ -15,6 +15,8 @@ export interface OutboxEntry {
   /** The record the mutation touches, so its working copy can be rebuilt. */
   entityId: string;
   createdAt: string;
+  /** For conflict.resolve: the field chosen, so the working copy shows the choice at once. */
+  field?: string;
   /** Set once a push was answered; the entry stays until a pull confirms it. */
   result?: MutationResult;
 }

@@ -39,12 +39,16 @@ export async function createSiteLocally(
   return id;
 }
 
-/** Sends only the fields that changed, each with the value the user saw (for the server's merge). */
+/**
+ * Sends only the fields that changed, each with the value the user saw (for the server's merge).
+ * `seenBefore` holds the values shown when the form opened; without it the working copy's are taken.
+ */
 export async function updateSiteLocally(
   db: EquipotDb,
   campaignId: string,
   id: string,
   values: SitePatch,
+  seenBefore?: SitePatch,
 ) {
   const current = await db.sites.get(id);
   if (!current || current.campaignId !== campaignId)
@@ -56,7 +60,7 @@ export async function updateSiteLocally(
     const seen = current[field as keyof SitePatch];
     if (value === undefined || value === seen) continue;
     changes[field] = value;
-    base[field] = seen;
+    base[field] = seenBefore?.[field as keyof SitePatch] ?? seen;
   }
   if (Object.keys(changes).length === 0) return false;
   await record(db, campaignId, "site.update", id, { id, changes, base });
@@ -86,12 +90,14 @@ export async function resolveConflictLocally(
         name: "conflict.resolve",
         args: { id: conflictId, value },
         entityId: conflict.entityId,
+        field: conflict.field,
         createdAt: new Date().toISOString(),
       });
       await db.conflicts.update(conflictId, {
         resolvedAt: new Date().toISOString(),
         resolvedValue: value,
       });
+      await rebuildSiteViews(db, [conflict.entityId]);
     },
   );
 }

@@ -1,4 +1,5 @@
 // Rebuilds the working copy of a site from the server's record and this tablet's pending mutations.
+import { sitePatchSchema } from "../../shared/schemas/sites";
 import type { SiteCreateInput, SitePatch, SiteView } from "../../shared/schemas/sites";
 import type { EquipotDb, LocalSite, OutboxEntry } from "./database";
 
@@ -31,6 +32,13 @@ function applyPending(record: SiteView | undefined, entry: OutboxEntry): SiteVie
         : record;
     case "site.delete":
       return record ? { ...record, deletedAt: entry.createdAt } : record;
+    case "conflict.resolve": {
+      // Only a site's own editable fields; anything else waits for the server's answer.
+      const field = entry.field;
+      if (!record || field === undefined || !(field in sitePatchSchema.shape)) return record;
+      const value = (entry.args as { value: unknown }).value;
+      return { ...record, [field]: value, updatedAt: entry.createdAt };
+    }
     default:
       return record;
   }

@@ -71,7 +71,16 @@ describe.each(looks)("in the $label look", ({ label, theme }) => {
     expect(await seriousViolations(page)).toEqual([]);
     await screenshot(page, `theme-${theme}-site-form-1024x768`);
 
-    await page.goto(page.url().replace(/\/sites\/new$/, "/members"));
+    const campaignUrl = page.url().replace(/\/sites\/new$/, "");
+    await page.goto(`${campaignUrl}/conflicts`);
+    await page.getByRole("heading", { name: "Kept for recovery" }).waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
+    await page.getByRole("link", { name: "This device" }).click();
+    await page.getByRole("heading", { name: "Storage" }).waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, `theme-${theme}-device-1024x768`);
+
+    await page.goto(`${campaignUrl}/members`);
     await page.getByRole("table", { name: "Members of this campaign" }).waitFor();
     expect(await seriousViolations(page)).toEqual([]);
     await page.getByRole("button", { name: "Sign out" }).click();
@@ -83,7 +92,11 @@ test("every button and link on the sites screen is at least 48 px tall", async (
   await page.setViewportSize(viewports.tabletPortrait);
   await openDemoSites(page, server.baseUrl, "admin");
   const small = await page.evaluate(() =>
-    [...document.querySelectorAll("main a, main button, header a, header button, input, select")]
+    [
+      ...document.querySelectorAll(
+        "main a, main button, header a, header button, section[aria-label=Sync] a, section[aria-label=Sync] button, input, select",
+      ),
+    ]
       .map((element) => ({
         name: element.textContent?.trim() ?? "",
         box: element.getBoundingClientRect(),

@@ -88,3 +88,69 @@ export async function apiCall(
   const text = await response.text();
   return { status: response.status, json: text === "" ? null : (JSON.parse(text) as unknown) };
 }
+
+/** Waits until the sync bar's status says `text` (e.g. "All changes sent"). */
+export async function waitForSyncStatus(page: Page, text: string | RegExp, timeout = 20_000) {
+  await page
+    .getByRole("region", { name: "Sync" })
+    .getByRole("status")
+    .filter({ hasText: text })
+    .waitFor({ timeout });
+}
+
+export async function syncStatusText(page: Page): Promise<string> {
+  return page.getByRole("region", { name: "Sync" }).getByRole("status").innerText();
+}
+
+export interface NewSiteFields {
+  name: string;
+  kind: string;
+  latitude: string;
+  longitude: string;
+  height: string;
+  notes?: string;
+}
+
+/** Fills the add-site form and saves; waits for the list with the new site. */
+export async function addSite(page: Page, site: NewSiteFields) {
+  await page.getByRole("link", { name: "Add site" }).click();
+  await page.getByLabel("Name").fill(site.name);
+  await page.getByLabel("Kind of site").selectOption(site.kind);
+  await page.getByLabel("Latitude").fill(site.latitude);
+  await page.getByLabel("Longitude").fill(site.longitude);
+  await page.getByLabel("Approximate height").fill(site.height);
+  if (site.notes !== undefined) await page.getByLabel("Notes").fill(site.notes);
+  await page.getByRole("button", { name: "Add site" }).click();
+  await page.getByRole("rowheader", { name: new RegExp(site.name) }).waitFor();
+}
+
+/** Opens a site's edit form, replaces its notes and saves. */
+export async function editNotes(page: Page, siteName: string, notes: string) {
+  await page.getByRole("link", { name: `Edit ${siteName}` }).click();
+  await page.getByRole("heading", { name: `Edit ${siteName}` }).waitFor();
+  await page.getByLabel("Notes").fill(notes);
+  await page.getByRole("button", { name: "Save changes" }).click();
+  await page.getByRole("heading", { name: "Sites", exact: true }).waitFor();
+}
+
+export interface ApiSite {
+  id: string;
+  name: string;
+  notes: string;
+  version: number;
+}
+
+/** The campaign's sites as the server has them, read with another person's token. */
+export async function serverSites(baseUrl: string, role: DemoRole): Promise<ApiSite[]> {
+  const session = await apiSignIn(baseUrl, role);
+  const campaign = session.memberships.find((m) => m.campaignName === demoCampaignName);
+  expect(campaign).toBeDefined();
+  const list = await apiCall(
+    baseUrl,
+    session.accessToken,
+    "GET",
+    `/campaigns/${campaign?.campaignId ?? ""}/sites`,
+  );
+  expect(list.status).toBe(200);
+  return (list.json as { sites: ApiSite[] }).sites;
+}

@@ -1,15 +1,20 @@
-// Adding, checking, editing (with a conflict) and deleting sites through the site form.
+// Adding, checking, editing (merged with a colleague's change) and deleting sites, all on the
+// device's working copy and sent by the sync engine.
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { launchBrowser, screenshot, viewports, watchConsole } from "../helpers/browser";
 import { startTestServer, type TestServer } from "../helpers/server";
 import {
+  addSite,
   apiCall,
   apiSignIn,
   demoCampaignName,
+  editNotes,
   fieldError,
   listedSiteNames,
   openDemoSites,
+  serverSites,
+  waitForSyncStatus,
   type DemoRole,
 } from "./flows";
 
@@ -93,33 +98,28 @@ describe("adding a site", () => {
     await page.context().close();
   });
 
-  test("the server's 400 details land on the fields they name", async () => {
+  test("adding and editing never call the sites REST endpoints: they go through sync", async () => {
     const page = await sitesPage("logistics");
-    await page.route("**/api/campaigns/*/sites", async (route) => {
-      if (route.request().method() !== "POST") return route.fallback();
-      await route.fulfill({
-        status: 400,
-        contentType: "application/json",
-        body: JSON.stringify({
-          error: {
-            code: "validation_failed",
-            message: "Some values were refused.",
-            details: [{ path: "approxHeightM", message: "Height does not fit this campaign" }],
-          },
-        }),
-      });
+    const restWrites: string[] = [];
+    const pushes: string[] = [];
+    page.on("request", (request) => {
+      const url = request.url();
+      if (request.method() !== "GET" && url.includes("/api/campaigns/")) restWrites.push(url);
+      if (url.includes("/api/sync/push")) pushes.push(url);
     });
-    await page.getByRole("link", { name: "Add site" }).click();
-    await page.getByLabel("Name").fill("Windgap depot");
-    await page.getByLabel("Kind of site").selectOption("depot");
-    await page.getByLabel("Latitude").fill("47.1");
-    await page.getByLabel("Longitude").fill("11.3");
-    await page.getByLabel("Approximate height").fill("1040");
-    await page.getByRole("button", { name: "Add site" }).click();
-
-    await page.getByRole("alert").filter({ hasText: "Not saved" }).waitFor();
-    expect(await fieldError(page, "Approximate height")).toBe("Height does not fit this campaign");
-    expect(await fieldError(page, "Name")).toBeNull();
+    await addSite(page, {
+      name: "Windgap depot",
+      kind: "depot",
+      latitude: "47.1",
+      longitude: "11.3",
+      height: "1040",
+    });
+    await editNotes(page, "Windgap depot", "Forklift in bay 2.");
+    await waitForSyncStatus(page, "All changes sent");
+    expect(restWrites).toEqual([]);
+    expect(pushes.length).toBeGreaterThan(0);
+    const onServer = await serverSites(server.baseUrl, "admin");
+    expect(onServer.find((s) => s.name === "Windgap depot")?.notes).toBe("Forklift in bay 2.");
     await page.context().close();
   });
 
@@ -133,22 +133,15 @@ describe("adding a site", () => {
 });
 
 describe("editing and deleting", () => {
-  test("an edit that lost a race says so, reloads the record and keeps what was typed", async () => {
+  test("an edit merges with a colleague's change of another field on the server", async () => {
     const page = await sitesPage("geodesist");
     await openEdit(page, "Kestrel Ridge hut");
 
-    // Meanwhile a colleague changes the same site from another device.
+    // Meanwhile a colleague changes the notes of the same site from another device.
     const other = await apiSignIn(server.baseUrl, "logistics");
     const campaign = other.memberships.find((m) => m.campaignName === demoCampaignName);
-    expect(campaign).toBeDefined();
     const campaignId = campaign?.campaignId ?? "";
-    const list = await apiCall(
-      server.baseUrl,
-      other.accessToken,
-      "GET",
-      `/campaigns/${campaignId}/sites`,
-    );
-    const sites = (list.json as { sites: { id: string; name: string; version: number }[] }).sites;
+    const sites = await serverSites(server.baseUrl, "logistics");
     const hut = sites.find((s) => s.name === "Kestrel Ridge hut");
     expect(hut).toBeDefined();
     const patched = await apiCall(
@@ -162,21 +155,19 @@ describe("editing and deleting", () => {
 
     await page.getByLabel("Name").fill("Kestrel Ridge summit hut");
     await page.getByRole("button", { name: "Save changes" }).click();
-    const notice = page.getByRole("alert").filter({ hasText: "Changed by someone else" });
-    await notice.waitFor();
-    expect(await notice.innerText()).toContain("Name: Kestrel Ridge summit hut");
-    await page.waitForFunction(() => {
-      const notes = document.querySelector("textarea");
-      return notes !== null && notes.value.startsWith("Cable car closed");
-    });
-    expect(await page.getByLabel("Name").inputValue()).toBe("Kestrel Ridge hut");
-    await screenshot(page, "site-conflict-1024x768");
-
-    await page.getByLabel("Name").fill("Kestrel Ridge summit hut");
-    await page.getByRole("button", { name: "Save changes" }).click();
     await page.getByRole("rowheader", { name: /Kestrel Ridge summit hut/ }).waitFor();
+    await waitForSyncStatus(page, "All changes sent");
+    // Only the name was sent, so the colleague's notes arrive and stay.
+    await page.waitForFunction(() => document.body.innerText.includes("Cable car closed"));
     const row = await page.getByRole("row", { name: /Kestrel Ridge summit hut/ }).innerText();
     expect(row).toContain("Cable car closed for repairs");
+    expect(await page.getByRole("link", { name: /Conflicts/ }).innerText()).toBe("Conflicts");
+    const after = (await serverSites(server.baseUrl, "admin")).find((s) => s.id === hut?.id);
+    expect(after).toMatchObject({
+      name: "Kestrel Ridge summit hut",
+      notes: "Cable car closed for repairs until Friday.",
+    });
+    await screenshot(page, "site-merged-1024x768");
     await page.context().close();
   });
 

@@ -2,6 +2,7 @@ import { NavLink, Outlet, useOutletContext, useParams } from "react-router-dom";
 import { can, roleLabels, type Role } from "../../../shared/permissions";
 import { LinkButton } from "../../components/button";
 import { Notice } from "../../components/notice";
+import { useReviewCount } from "../../features/sync/hooks/use-sync-data";
 import { cx } from "../../lib/cx";
 import { useSession } from "../../lib/use-session";
 import { paths } from "../paths";
@@ -22,6 +23,22 @@ const tabClass = ({ isActive }: { isActive: boolean }) =>
     isActive ? "border-line bg-surface" : "border-transparent text-muted hover:text-ink",
   );
 
+/** Always shown, so people learn where conflicts appear; the count says when one waits. */
+function ConflictsTab({ campaignId }: { campaignId: string }) {
+  const count = useReviewCount(campaignId);
+  return (
+    <NavLink to={paths.conflicts(campaignId)} className={tabClass}>
+      Conflicts
+      {count > 0 && (
+        <span className="ml-2 inline-flex min-w-7 items-center justify-center rounded-full border-2 border-attention bg-attention-soft px-1.5 text-sm text-attention-ink tabular-nums">
+          {count}
+          <span className="sr-only"> to check</span>
+        </span>
+      )}
+    </NavLink>
+  );
+}
+
 function CampaignNav({ campaign }: { campaign: CampaignContext }) {
   return (
     <nav
@@ -31,6 +48,7 @@ function CampaignNav({ campaign }: { campaign: CampaignContext }) {
       <NavLink to={paths.sites(campaign.campaignId)} className={tabClass}>
         Sites
       </NavLink>
+      <ConflictsTab campaignId={campaign.campaignId} />
       {can(campaign.role, "member.read") && (
         <NavLink to={paths.members(campaign.campaignId)} className={tabClass}>
           Members

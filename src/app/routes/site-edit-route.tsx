@@ -1,8 +1,8 @@
 import { useNavigate, useParams } from "react-router-dom";
 import { can } from "../../../shared/permissions";
-import { useSite } from "../../features/sites/api/get-sites";
 import { DeleteSiteControl } from "../../features/sites/components/delete-site-control";
 import { EditSiteForm } from "../../features/sites/components/edit-site-form";
+import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
 import { LinkButton } from "../../components/button";
 import { Loading } from "../../components/loading";
 import { Notice } from "../../components/notice";
@@ -10,23 +10,24 @@ import { PageHeader } from "../../components/page-header";
 import { useCampaign } from "../layouts/campaign-layout";
 import { paths } from "../paths";
 import { NotAllowed } from "../not-allowed";
+import type { SavedState } from "./sites-route";
 
 export function SiteEditRoute() {
   const { campaignId, role } = useCampaign();
   const { siteId = "" } = useParams();
   const navigate = useNavigate();
-  const site = useSite(campaignId, siteId);
+  const site = useLocalSite(campaignId, siteId);
   const back = paths.sites(campaignId);
 
   if (!can(role, "site.write")) {
     return <NotAllowed what="Your role can read sites but not change them." backHref={back} />;
   }
-  if (site.data === undefined) return <Loading label="Loading the site…" />;
-  if (site.data === null) {
+  if (site === undefined) return <Loading label="Reading the site on this device…" />;
+  if (site === null) {
     return (
       <div className="flex flex-col gap-4">
         <Notice tone="attention" title="Site not found">
-          It may have been deleted.
+          It may have been deleted, or it is not on this device yet.
         </Notice>
         <div>
           <LinkButton to={back}>Back to the sites</LinkButton>
@@ -34,20 +35,21 @@ export function SiteEditRoute() {
       </div>
     );
   }
+  const onSaved = (name: string, changed: boolean) => {
+    const state: SavedState | undefined = changed ? { saved: `“${name}” was changed.` } : undefined;
+    navigate(back, { state });
+  };
+  const lead =
+    site.version === 0 ? "Not yet on the server" : `Version ${site.version} on the server`;
   return (
     <>
-      <PageHeader title={`Edit ${site.data.name}`} lead={`Version ${site.data.version}`} />
-      <EditSiteForm
-        campaignId={campaignId}
-        site={site.data}
-        cancelHref={back}
-        onSaved={() => navigate(back)}
-      />
+      <PageHeader title={`Edit ${site.name}`} lead={lead} />
+      <EditSiteForm campaignId={campaignId} site={site} cancelHref={back} onSaved={onSaved} />
       {can(role, "site.delete") && (
         <section aria-label="Delete" className="mt-10 border-t-2 border-line pt-6">
           <DeleteSiteControl
             campaignId={campaignId}
-            site={site.data}
+            site={site}
             onDeleted={() => navigate(back, { replace: true })}
           />
         </section>

@@ -5,6 +5,7 @@ import { PageHeader } from "../../components/page-header";
 import { useCampaign } from "../layouts/campaign-layout";
 import { paths } from "../paths";
 import { NotAllowed } from "../not-allowed";
+import type { SavedState } from "./sites-route";
 
 export function SiteNewRoute() {
   const { campaignId, role } = useCampaign();
@@ -14,10 +15,14 @@ export function SiteNewRoute() {
   if (!can(role, "site.write")) {
     return <NotAllowed what="Your role can read sites but not add them." backHref={back} />;
   }
+  const onCreated = (name: string) => {
+    const state: SavedState = { saved: `“${name}” was added.` };
+    navigate(back, { state });
+  };
   return (
     <>
       <PageHeader title="Add a site" />
-      <CreateSiteForm campaignId={campaignId} cancelHref={back} onCreated={() => navigate(back)} />
+      <CreateSiteForm campaignId={campaignId} cancelHref={back} onCreated={onCreated} />
     </>
   );
 }

@@ -1,22 +1,18 @@
-import { useCreateSite } from "../api/create-site";
+import { useSiteWrites } from "../hooks/use-local-sites";
 import { SiteForm, type SiteFormOutput } from "./site-form";
 
 interface CreateSiteFormProps {
   campaignId: string;
   cancelHref: string;
-  onCreated: () => void;
-}
-
-function newSiteId(): string | undefined {
-  // Made here so that a site keeps its identity once offline creation arrives (DESIGN.md §4).
-  return typeof crypto.randomUUID === "function" ? crypto.randomUUID() : undefined;
+  /** Called once the new site is committed on this device. */
+  onCreated: (name: string) => void;
 }
 
 export function CreateSiteForm({ campaignId, cancelHref, onCreated }: CreateSiteFormProps) {
-  const createSite = useCreateSite(campaignId);
+  const writes = useSiteWrites(campaignId);
   const save = async (values: SiteFormOutput) => {
-    await createSite.mutateAsync({ id: newSiteId(), ...values });
-    onCreated();
+    await writes.create(values);
+    onCreated(values.name);
   };
   return (
     <SiteForm

@@ -3,7 +3,7 @@ import type { SiteView } from "../../../../shared/schemas";
 import { Button } from "../../../components/button";
 import { Notice } from "../../../components/notice";
 import { messageOf } from "../../../lib/api-error";
-import { useDeleteSite } from "../api/delete-site";
+import { useSiteWrites } from "../hooks/use-local-sites";
 
 interface DeleteSiteControlProps {
   campaignId: string;
@@ -14,7 +14,9 @@ interface DeleteSiteControlProps {
 /** Two steps, so that a gloved tap never deletes by accident. */
 export function DeleteSiteControl({ campaignId, site, onDeleted }: DeleteSiteControlProps) {
   const [confirming, setConfirming] = useState(false);
-  const deleteSite = useDeleteSite(campaignId);
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<unknown>(null);
+  const writes = useSiteWrites(campaignId);
 
   if (!confirming) {
     return (
@@ -23,25 +25,32 @@ export function DeleteSiteControl({ campaignId, site, onDeleted }: DeleteSiteCon
       </Button>
     );
   }
+  const remove = async () => {
+    setBusy(true);
+    setError(null);
+    try {
+      await writes.remove(site.id);
+      onDeleted();
+    } catch (caught) {
+      setError(caught);
+      setBusy(false);
+    }
+  };
   return (
     <div className="flex flex-col gap-3 rounded-lg border-2 border-danger bg-surface p-4">
       <p className="font-semibold">Delete “{site.name}”?</p>
       <p className="text-muted">
-        It leaves the campaign’s lists for everyone. The server keeps a deleted record for the audit
-        trail.
+        It leaves the campaign’s lists for everyone once sent. The server keeps a deleted record for
+        the audit trail.
       </p>
-      {deleteSite.isError && (
+      {error !== null && (
         <Notice tone="danger" title="Not deleted" live>
-          {messageOf(deleteSite.error)}
+          {messageOf(error)}
         </Notice>
       )}
       <div className="flex flex-wrap gap-3">
-        <Button
-          tone="danger"
-          disabled={deleteSite.isPending}
-          onClick={() => deleteSite.mutate(site.id, { onSuccess: onDeleted })}
-        >
-          {deleteSite.isPending ? "Deleting…" : "Yes, delete"}
+        <Button tone="danger" disabled={busy} onClick={() => void remove()}>
+          {busy ? "Deleting…" : "Yes, delete"}
         </Button>
         <Button onClick={() => setConfirming(false)}>Keep the site</Button>
       </div>

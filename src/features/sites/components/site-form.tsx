@@ -6,7 +6,6 @@ import { siteFormSchema, type SiteFormValues } from "../../../../shared/schemas"
 import { Button, LinkButton } from "../../../components/button";
 import { Notice } from "../../../components/notice";
 import { applyServerErrors } from "../../../lib/form-errors";
-import { useConnectivity } from "../../../lib/use-connectivity";
 import { SiteFormFields } from "./site-form-fields";
 
 export type SiteFormOutput = z.output<typeof siteFormSchema>;
@@ -25,13 +24,13 @@ interface SiteFormProps {
   defaultValues: DefaultValues<SiteFormValues>;
   submitLabel: string;
   cancelHref: string;
-  /** Saves; throws an ApiError that the form maps onto its fields. */
+  /** Saves on this device; resolves once committed. A thrown error is shown as "Not saved". */
   onSave: (values: SiteFormOutput, dirty: SiteFormDirty) => Promise<void>;
   /** Shown above the fields, e.g. a conflict notice. */
   banner?: ReactNode;
 }
 
-/** The site's fields, checked with the shared schema; server refusals land on their fields. */
+/** The site's fields, checked with the shared schema; saving works with or without a network. */
 export function SiteForm({
   defaultValues,
   submitLabel,
@@ -40,7 +39,6 @@ export function SiteForm({
   banner,
 }: SiteFormProps) {
   const [formMessage, setFormMessage] = useState<string | null>(null);
-  const offline = useConnectivity() !== "online";
   const { register, handleSubmit, formState, setError } = useForm<
     SiteFormValues,
     unknown,
@@ -54,18 +52,13 @@ export function SiteForm({
       await onSave(values, dirtyFields);
     } catch (error) {
       const message = applyServerErrors(error, fieldNames, setError);
-      setFormMessage(message ?? "The server refused some values: see the fields marked below.");
+      setFormMessage(message ?? "Some values were refused: see the fields marked below.");
     }
   });
 
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-6" aria-label="Site">
       {banner}
-      {offline && (
-        <Notice tone="attention" title="Offline">
-          Saving needs a connection for now. What you type stays in the form until you save.
-        </Notice>
-      )}
       {formMessage !== null && (
         <Notice tone="danger" title="Not saved" live>
           {formMessage}

@@ -1,8 +1,9 @@
-import { siteKindLabels, type SiteView } from "../../../../shared/schemas";
+import { siteKindLabels } from "../../../../shared/schemas";
+import type { LocalSite } from "../../../db/database";
 import { LinkButton } from "../../../components/button";
 import { Loading } from "../../../components/loading";
 import { Notice } from "../../../components/notice";
-import { messageOf } from "../../../lib/api-error";
+import { PendingMark } from "../../../components/pending-mark";
 import {
   formatHeightM,
   formatLatitude,
@@ -11,7 +12,8 @@ import {
   formatUtc,
 } from "../../../lib/format";
 import { useConnectivity } from "../../../lib/use-connectivity";
-import { useSites } from "../api/get-sites";
+import { useSyncStatus } from "../../../lib/sync-context";
+import { useLocalSites } from "../hooks/use-local-sites";
 
 interface SiteListProps {
   campaignId: string;
@@ -19,12 +21,13 @@ interface SiteListProps {
   editHrefOf: ((siteId: string) => string) | null;
 }
 
-function SiteRow({ site, editHref }: { site: SiteView; editHref: string | null }) {
+function SiteRow({ site, editHref }: { site: LocalSite; editHref: string | null }) {
   return (
     <tr className="border-t border-line align-top max-sm:flex max-sm:flex-wrap max-sm:items-start max-sm:py-2">
       <th scope="row" className="px-4 py-3 text-left font-normal max-sm:w-full max-sm:pb-1">
         <span className="block text-lg font-semibold">{site.name}</span>
         <span className="block text-sm text-muted">{siteKindLabels[site.kind]}</span>
+        {site.pendingChanges > 0 && <PendingMark className="mt-1" />}
         {site.notes !== "" && <span className="mt-1 block max-w-prose text-sm">{site.notes}</span>}
       </th>
       <td className="px-4 py-3 text-right whitespace-nowrap tabular-nums max-sm:py-1 max-sm:text-left">
@@ -51,18 +54,8 @@ function SiteRow({ site, editHref }: { site: SiteView; editHref: string | null }
   );
 }
 
-function OfflineCopyNotice({ loadedAtMs }: { loadedAtMs: number }) {
-  const loadedAt = new Date(loadedAtMs).toISOString();
-  return (
-    <Notice tone="attention" title="Offline copy">
-      Sites as loaded on <span className="tabular-nums">{formatUtc(loadedAt)}</span> (
-      {formatLocalBeside(loadedAt)}). Adding and changing sites needs a connection for now.
-    </Notice>
-  );
-}
-
 interface SitesTableProps {
-  sites: readonly SiteView[];
+  sites: readonly LocalSite[];
   editHrefOf: SiteListProps["editHrefOf"];
 }
 
@@ -103,44 +96,38 @@ function SitesTable({ sites, editHrefOf }: SitesTableProps) {
   );
 }
 
-function NoDataYet({ error, paused }: { error: unknown; paused: boolean }) {
+function NotOnDeviceYet({ online, error }: { online: boolean; error: string | null }) {
+  if (!online) {
+    return (
+      <Notice tone="attention" title="Nothing on this device yet">
+        This campaign has not been loaded onto this device. Connect to the network once and its
+        sites come here, to use offline afterwards.
+      </Notice>
+    );
+  }
   if (error !== null) {
     return (
-      <Notice tone="danger" title="Sites not loaded" live>
-        {messageOf(error)}
+      <Notice tone="danger" title="Campaign not loaded" live>
+        {error}
       </Notice>
     );
   }
-  if (paused) {
-    return (
-      <Notice tone="attention" title="Not yet on this device">
-        The site list has not been loaded on this device yet. It appears once you are online.
-      </Notice>
-    );
-  }
-  return <Loading label="Loading sites…" />;
+  return <Loading label="Loading the campaign onto this device…" />;
 }
 
 export function SiteList({ campaignId, editHrefOf }: SiteListProps) {
-  const sites = useSites(campaignId);
+  const { sites, pulled } = useLocalSites(campaignId);
   const online = useConnectivity() === "online";
+  const syncError = useSyncStatus().error;
 
-  if (sites.data === undefined) {
-    return <NoDataYet error={sites.error} paused={sites.fetchStatus === "paused"} />;
-  }
+  if (sites === undefined || pulled === undefined) return <Loading label="Reading this device…" />;
   return (
     <div className="flex flex-col gap-4">
-      {!online && <OfflineCopyNotice loadedAtMs={sites.dataUpdatedAt} />}
-      {sites.isError && online && (
-        <Notice tone="attention" title="Showing the saved list">
-          Could not refresh: {messageOf(sites.error)}
-        </Notice>
-      )}
-      {sites.data.length === 0 ? (
+      {!pulled && <NotOnDeviceYet online={online} error={syncError?.message ?? null} />}
+      {pulled && sites.length === 0 && (
         <Notice title="No sites yet">This campaign has no sites yet.</Notice>
-      ) : (
-        <SitesTable sites={sites.data} editHrefOf={editHrefOf} />
       )}
+      {sites.length > 0 && <SitesTable sites={sites} editHrefOf={editHrefOf} />}
     </div>
   );
 }

@@ -1,0 +1,53 @@
+// Reads of the working copy, for live queries (dexie-react-hooks) and tests. Components reach them
+// through hooks, never Dexie itself.
+import type { EquipotDb, LocalConflict, LocalSite, RecoveryEntry } from "./database";
+import { cursorKey } from "./meta";
+
+const byName = (a: LocalSite, b: LocalSite) =>
+  a.name.localeCompare(b.name, undefined, { sensitivity: "base" }) || a.id.localeCompare(b.id);
+
+/** The campaign's sites as this device sees them, deleted ones left out, sorted by name. */
+export async function listSites(db: EquipotDb, campaignId: string): Promise<LocalSite[]> {
+  const sites = await db.sites.where("campaignId").equals(campaignId).toArray();
+  return sites.filter((site) => site.deletedAt === null).sort(byName);
+}
+
+/** One site of the campaign, or null when it is not on this device (or deleted). */
+export async function findSite(
+  db: EquipotDb,
+  campaignId: string,
+  siteId: string,
+): Promise<LocalSite | null> {
+  const site = await db.sites.get(siteId);
+  if (site === undefined || site.campaignId !== campaignId || site.deletedAt !== null) return null;
+  return site;
+}
+
+/** True once at least one page of the campaign was pulled onto this device. */
+export async function hasPulled(db: EquipotDb, campaignId: string): Promise<boolean> {
+  return (await db.meta.get(cursorKey(campaignId))) !== undefined;
+}
+
+/** Conflicts a person still has to decide, oldest first. */
+export async function listOpenConflicts(
+  db: EquipotDb,
+  campaignId: string,
+): Promise<LocalConflict[]> {
+  const all = await db.conflicts.where("campaignId").equals(campaignId).toArray();
+  return all
+    .filter((conflict) => conflict.resolvedAt === null)
+    .sort((a, b) => a.openedAt.localeCompare(b.openedAt));
+}
+
+/** Changes the server refused, newest first. */
+export async function listRecovery(db: EquipotDb, campaignId: string): Promise<RecoveryEntry[]> {
+  const all = await db.recovery.where("campaignId").equals(campaignId).toArray();
+  return all.sort((a, b) => b.mutationId - a.mutationId);
+}
+
+/** Names of sites by id (deleted ones too), to label conflicts and refused changes. */
+export async function siteNames(db: EquipotDb, campaignId: string): Promise<Map<string, string>> {
+  const sites = await db.sites.where("campaignId").equals(campaignId).toArray();
+  const server = await db.serverSites.where("campaignId").equals(campaignId).toArray();
+  return new Map([...server, ...sites].map((site) => [site.id, site.name]));
+}
