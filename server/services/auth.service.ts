@@ -8,7 +8,8 @@ import {
   markRotated,
   revokeFamily,
 } from "../db/repositories/refresh-tokens";
-import { findUserByEmail, findUserById, listMembershipsOfUser } from "../db/repositories/users";
+import { listCampaignsOfUser } from "../db/repositories/campaigns";
+import { findUserByEmail, findUserById } from "../db/repositories/users";
 import { unauthenticated } from "../http-errors";
 import { verifyAgainstDummy, verifyPassword } from "./passwords";
 import { assertNotThrottled, recordSignInFailure, recordSignInSuccess } from "./throttle";
@@ -30,7 +31,12 @@ export interface IssuedSession {
 export async function describeUser(q: Queryable, userId: string) {
   const user = await findUserById(q, userId);
   if (!user) throw unauthenticated();
-  const memberships = await listMembershipsOfUser(q, userId);
+  const campaigns = await listCampaignsOfUser(q, userId);
+  const memberships = campaigns.map((c) => ({
+    campaignId: c.id,
+    campaignName: c.name,
+    role: c.role,
+  }));
   return { user: { id: user.id, email: user.email, name: user.name }, memberships };
 }
 

@@ -1,6 +1,6 @@
-import { and, asc, eq, isNull, sql } from "drizzle-orm";
+import { and, eq, isNull, sql } from "drizzle-orm";
 import type { Queryable } from "../client";
-import { campaigns, memberships, users } from "../schema";
+import { memberships, users } from "../schema";
 
 export const findUserByEmail = async (q: Queryable, email: string) =>
   (
@@ -19,19 +19,6 @@ export const findUserById = async (q: Queryable, id: string) =>
       .where(and(eq(users.id, id), isNull(users.disabledAt)))
       .limit(1)
   )[0];
-
-export async function listMembershipsOfUser(q: Queryable, userId: string) {
-  return q
-    .select({
-      campaignId: memberships.campaignId,
-      campaignName: campaigns.name,
-      role: memberships.role,
-    })
-    .from(memberships)
-    .innerJoin(campaigns, eq(campaigns.id, memberships.campaignId))
-    .where(eq(memberships.userId, userId))
-    .orderBy(asc(campaigns.name));
-}
 
 export async function findMembership(q: Queryable, userId: string, campaignId: string) {
   const rows = await q
