@@ -92,6 +92,9 @@ function fakeServer() {
   return { transport, sites, pushes, loseNextResponse: () => (failNextPushAfterApply = true) };
 }
 
+const engineFor = (db: ReturnType<typeof openDatabase>, server: ReturnType<typeof fakeServer>) =>
+  createSyncEngine({ db, transport: server.transport, campaignIds: () => [campaignId] });
+
 const newDb = () =>
   openDatabase(`t-${crypto.randomUUID()}`, { indexedDB: new IDBFactory(), IDBKeyRange });
 
@@ -170,11 +173,7 @@ describe("sync engine", () => {
   it("resends after a lost response without doubling anything", async () => {
     const db = newDb();
     const server = fakeServer();
-    const engine = createSyncEngine({
-      db,
-      transport: server.transport,
-      campaignIds: () => [campaignId],
-    });
+    const engine = engineFor(db, server);
     const id = await createSiteLocally(db, campaignId, values);
     server.loseNextResponse();
     await expect(engine.sync()).rejects.toThrow();
@@ -190,11 +189,7 @@ describe("sync engine", () => {
   it("keeps local edits on top of newer server data until they are confirmed", async () => {
     const db = newDb();
     const server = fakeServer();
-    const engine = createSyncEngine({
-      db,
-      transport: server.transport,
-      campaignIds: () => [campaignId],
-    });
+    const engine = engineFor(db, server);
     const id = await createSiteLocally(db, campaignId, values);
     await engine.sync();
     const synced = await db.serverSites.get(id);
