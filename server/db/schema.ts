@@ -17,6 +17,7 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 import { roles } from "../../shared/permissions";
+import { attachmentSubjectKinds } from "../../shared/schemas/attachments";
 import { siteKinds } from "../../shared/schemas/sites";
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
@@ -257,6 +258,38 @@ export const attachments = pgTable(
 );
 
 /** A transport crate with the limits its contents must stay within. */
+export const attachmentSubjectKindEnum = pgEnum("attachment_subject_kind", attachmentSubjectKinds);
+
+/** A file attached to a record. Append-only: added once, removed once (a tombstone), never edited. */
+export const attachmentLinks = pgTable(
+  "attachment_links",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: uuid("campaign_id")
+      .notNull()
+      .references(() => campaigns.id, { onDelete: "cascade" }),
+    /** The bytes may arrive before or after the link: no foreign key to attachments. */
+    sha256: text("sha256").notNull(),
+    contentType: text("content_type").notNull(),
+    sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
+    name: text("name").notNull().default(""),
+    subjectKind: attachmentSubjectKindEnum("subject_kind").notNull(),
+    subjectId: uuid("subject_id").notNull(),
+    caption: text("caption").notNull().default(""),
+    takenAt: timestamp("taken_at", { withTimezone: true }),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    removedAt: timestamp("removed_at", { withTimezone: true }),
+    removedBy: uuid("removed_by").references(() => users.id, { onDelete: "set null" }),
+    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+  },
+  (t) => [
+    index("attachment_links_change_idx").on(t.campaignId, t.changeSeq),
+    index("attachment_links_subject_idx").on(t.campaignId, t.subjectKind, t.subjectId),
+    check("attachment_links_sha256_hex", sql`${t.sha256} ~ '^[0-9a-f]{64}$'`),
+  ],
+);
+
 export const crates = pgTable(
   "crates",
   {

@@ -42,3 +42,47 @@ export type AttachmentView = z.infer<typeof attachmentView>;
 /** Body of 200/201 after PUT and of GET …/meta. */
 export const attachmentResponse = z.object({ attachment: attachmentView });
 export type AttachmentResponse = z.infer<typeof attachmentResponse>;
+
+/** What a photo or file can be attached to; later entities add their kind here. */
+export const attachmentSubjectKinds = ["site"] as const;
+export const attachmentSubjectKind = z.enum(attachmentSubjectKinds);
+export type AttachmentSubjectKind = z.infer<typeof attachmentSubjectKind>;
+
+export const captionMax = 500;
+
+/** A file attached to a record: the bytes are addressed by hash, the link syncs like any entity. */
+export const attachmentLinkInput = z.strictObject({
+  id: z.uuid("id must be a UUID"),
+  sha256: sha256Hex,
+  contentType: attachmentContentType,
+  sizeBytes: z
+    .number()
+    .int()
+    .min(1, "sizeBytes must be at least 1")
+    .max(attachmentLimits.maxBytes, `sizeBytes must be at most ${attachmentLimits.maxBytes}`),
+  name: z.string().trim().max(attachmentLimits.nameMax).default(""),
+  subject: z.strictObject({ kind: attachmentSubjectKind, id: z.uuid("subject.id must be a UUID") }),
+  caption: z
+    .string()
+    .trim()
+    .max(captionMax, `Caption must be at most ${captionMax} characters`)
+    .default(""),
+  takenAt: z.iso.datetime({ offset: true }).nullable().default(null),
+});
+export type AttachmentLinkInput = z.input<typeof attachmentLinkInput>;
+
+export const attachmentLinkView = z.object({
+  id: z.uuid(),
+  campaignId: z.uuid(),
+  sha256: sha256Hex,
+  contentType: attachmentContentType,
+  sizeBytes: z.number().int(),
+  name: z.string(),
+  subject: z.object({ kind: attachmentSubjectKind, id: z.uuid() }),
+  caption: z.string(),
+  takenAt: z.string().nullable(),
+  createdAt: z.string(),
+  createdBy: z.uuid().nullable(),
+  removedAt: z.string().nullable(),
+});
+export type AttachmentLinkView = z.infer<typeof attachmentLinkView>;

@@ -2,6 +2,7 @@
 // Version it: a client with another protocol version is told to update and keeps its outbox.
 import { z } from "zod";
 import type { Action } from "../permissions";
+import { attachmentLinkInput, attachmentLinkView } from "../schemas/attachments";
 import { siteCreateInput, sitePatchSchema, siteView } from "../schemas/sites";
 
 export const protocolVersion = 1;
@@ -26,6 +27,9 @@ export const mutationSchemas = {
   "site.delete": z.strictObject({ id: z.uuid() }),
   // A person's choice for one conflicted field; the value is checked by the entity's field schema.
   "conflict.resolve": z.strictObject({ id: z.uuid(), value: z.unknown() }),
+  // Attachments are append-only: added once, removed once, never edited, so they never conflict.
+  "attachment.add": attachmentLinkInput,
+  "attachment.remove": z.strictObject({ id: z.uuid() }),
 } as const;
 
 export const mutationNames = Object.keys(mutationSchemas) as [
@@ -42,6 +46,8 @@ export const mutationActions: Record<MutationName, Action> = {
   "site.update": "site.write",
   "site.delete": "site.delete",
   "conflict.resolve": "site.write",
+  "attachment.add": "attachment.write",
+  "attachment.remove": "attachment.write",
 };
 
 export const mutationEnvelope = z.strictObject({
@@ -77,7 +83,7 @@ export const pushResponse = z.object({
 });
 export type PushResponse = z.infer<typeof pushResponse>;
 
-export const syncEntities = ["site", "conflict"] as const;
+export const syncEntities = ["site", "conflict", "attachment"] as const;
 export const syncEntitySchema = z.enum(syncEntities);
 export type SyncEntity = z.infer<typeof syncEntitySchema>;
 
@@ -104,6 +110,12 @@ export const changeRecord = z.discriminatedUnion("entity", [
     id: z.uuid(),
     data: conflictView,
   }),
+  z.object({
+    entity: z.literal("attachment"),
+    seq: z.number().int(),
+    id: z.uuid(),
+    data: attachmentLinkView,
+  }),
 ]);
 export type ChangeRecord = z.infer<typeof changeRecord>;
 
@@ -113,6 +125,9 @@ export const pullQuery = z.strictObject({
   clientId: z.uuid("clientId must be a UUID").optional(),
   cursor: z.coerce.number().int().min(0).default(0),
   limit: z.coerce.number().int().min(1).max(maxPullPage).default(defaultPullPage),
+  // The lowest mutation id still in the client's outbox: the last page names the refused ones
+  // from there on, so a refusal whose push answer was lost still reaches the recovery list.
+  pendingFrom: z.coerce.number().int().min(1).optional(),
 });
 
 export const pullResponse = z.object({
@@ -120,6 +135,7 @@ export const pullResponse = z.object({
   cursor: z.number().int(),
   hasMore: z.boolean(),
   lastMutationId: z.number().int().nullable(),
+  rejections: z.array(z.object({ mutationId: z.number().int(), reason: z.string() })).default([]),
 });
 export type PullResponse = z.infer<typeof pullResponse>;
 

@@ -2,7 +2,7 @@
 // offers a download of them first. They also stay on this device for the next sign-in.
 import { useId, useState } from "react";
 import { useSignOut } from "../features/auth/api/sign-out";
-import { changesWord } from "../features/sync/components/sync-bar";
+import { waitingWords } from "../features/sync/components/sync-bar";
 import { useDownloads } from "../features/sync/hooks/use-sync-data";
 import { Button } from "../components/button";
 import { StatusShape } from "../components/status-shape";
@@ -10,12 +10,12 @@ import { useSyncStatus } from "../lib/sync-context";
 
 export function SignOutControl() {
   const signOut = useSignOut();
-  const { pending } = useSyncStatus();
+  const waiting = waitingWords(useSyncStatus());
   const downloads = useDownloads();
   const [asking, setAsking] = useState(false);
   const titleId = useId();
 
-  const start = () => (pending > 0 ? setAsking(true) : signOut.mutate());
+  const start = () => (waiting !== null ? setAsking(true) : signOut.mutate());
   return (
     <div className="relative">
       <Button tone="secondary" onClick={start} disabled={signOut.isPending}>
@@ -32,7 +32,7 @@ export function SignOutControl() {
         >
           <p id={titleId} className="flex items-center gap-2 text-lg font-semibold">
             <StatusShape shape="triangle" className="text-attention" />
-            {changesWord(pending)} not yet sent
+            {waiting} not yet sent
           </p>
           <p>
             The server does not have them yet. They stay on this device and are sent when you sign

@@ -5,6 +5,7 @@ import { openDatabase } from "../db/database";
 import { getHealth } from "../features/health/api/get-health";
 import { apiRequest } from "../lib/api";
 import { askPersistence, refreshEstimate } from "../lib/device-storage";
+import { attachmentExists, uploadAttachment } from "../lib/file-api";
 import { getSession } from "../lib/session";
 import { LocalSyncContext, type LocalSync } from "../lib/sync-context";
 import { createSyncEngine } from "../sync/engine";
@@ -22,7 +23,10 @@ function createLocalSync(userId: string): LocalSync {
   const db = openDatabase(localDatabaseName(userId));
   const engine = createSyncEngine({
     db,
-    transport: createHttpTransport(apiRequest),
+    transport: createHttpTransport(apiRequest, {
+      exists: attachmentExists,
+      upload: uploadAttachment,
+    }),
     campaignIds,
     exclusive: webLockExclusive,
   });

@@ -2,10 +2,9 @@
 // This folder holds the only code that touches IndexedDB. Bump the version with an upgrade for every
 // schema change, so that an app update never loses the outbox.
 import { Dexie, type DexieOptions, type EntityTable } from "dexie";
+import type { AttachmentContentType, AttachmentLinkView } from "../../shared/schemas/attachments";
 import type { SiteView } from "../../shared/schemas/sites";
 import type { ConflictView, MutationName, MutationResult } from "../../shared/sync/protocol";
-
-export const localSchemaVersion = 1;
 
 export interface OutboxEntry {
   mutationId: number;
@@ -41,6 +40,32 @@ export interface RecoveryEntry {
   at: string;
 }
 
+/** A link from a record to a file, as this device sees it (the server's, or one not yet sent). */
+export interface LocalAttachment extends AttachmentLinkView {
+  pending: boolean;
+}
+
+export type LocalFileState = "waiting" | "sent" | "refused";
+
+/** The bytes of a photo or file, kept until the server has them and afterwards as a cache. */
+export interface LocalFile {
+  /** `${campaignId}:${sha256}`: the server keeps files per campaign. */
+  key: string;
+  campaignId: string;
+  sha256: string;
+  contentType: AttachmentContentType;
+  sizeBytes: number;
+  name: string;
+  bytes: ArrayBuffer;
+  state: LocalFileState;
+  /** Why the server refused it, in its words. */
+  refusal: string | null;
+  addedAt: string;
+  sentAt: string | null;
+}
+
+export const fileKey = (campaignId: string, sha256: string) => `${campaignId}:${sha256}`;
+
 export interface MetaRow {
   key: string;
   value: unknown;
@@ -53,17 +78,48 @@ export type EquipotDb = Dexie & {
   sites: EntityTable<LocalSite, "id">;
   conflicts: EntityTable<LocalConflict, "id">;
   recovery: EntityTable<RecoveryEntry, "id">;
+  serverAttachments: EntityTable<AttachmentLinkView, "id">;
+  attachments: EntityTable<LocalAttachment, "id">;
+  files: EntityTable<LocalFile, "key">;
 };
 
-export function openDatabase(name = "equipot", options?: DexieOptions): EquipotDb {
+/**
+ * Every schema version ever shipped, oldest first. Never edit a shipped entry: add a new one (with
+ * an upgrade function when rows must change), so a tablet updating the app keeps its outbox.
+ */
+export const schemaHistory: readonly { version: number; stores: Record<string, string | null> }[] =
+  [
+    {
+      version: 1,
+      stores: {
+        meta: "key",
+        outbox: "mutationId, campaignId, entityId",
+        serverSites: "id, campaignId",
+        sites: "id, campaignId",
+        conflicts: "id, campaignId, entityId",
+        recovery: "++id, campaignId",
+      },
+    },
+    {
+      version: 2,
+      stores: {
+        serverAttachments: "id, campaignId, subject.id",
+        attachments: "id, campaignId, subject.id",
+        files: "key, campaignId, state",
+      },
+    },
+  ];
+
+export const localSchemaVersion = schemaHistory.at(-1)?.version ?? 1;
+
+/** `upTo` opens an older version: only for tests of the upgrade path. */
+export function openDatabase(
+  name = "equipot",
+  options?: DexieOptions,
+  upTo = localSchemaVersion,
+): EquipotDb {
   const db = new Dexie(name, options) as EquipotDb;
-  db.version(localSchemaVersion).stores({
-    meta: "key",
-    outbox: "mutationId, campaignId, entityId",
-    serverSites: "id, campaignId",
-    sites: "id, campaignId",
-    conflicts: "id, campaignId, entityId",
-    recovery: "++id, campaignId",
-  });
+  for (const { version, stores } of schemaHistory)
+    if (version <= upTo) db.version(version).stores(stores);
   return db;
 }

@@ -2,6 +2,7 @@
 import {
   localSchemaVersion,
   type EquipotDb,
+  type LocalFile,
   type OutboxEntry,
   type RecoveryEntry,
 } from "./database";
@@ -43,4 +44,10 @@ export async function exportRecovery(
     clientId: await clientIdOf(db),
     entries: entries.sort((a, b) => a.mutationId - b.mutationId),
   };
+}
+
+/** Photos and files whose bytes the server does not have, or refused: saved beside the changes. */
+export async function unsentFiles(db: EquipotDb): Promise<LocalFile[]> {
+  const waiting = await db.files.where("state").anyOf("waiting", "refused").toArray();
+  return waiting.sort((a, b) => a.addedAt.localeCompare(b.addedAt));
 }

@@ -1,6 +1,14 @@
 // Reads of the working copy, for live queries (dexie-react-hooks) and tests. Components reach them
 // through hooks, never Dexie itself.
-import type { EquipotDb, LocalConflict, LocalSite, RecoveryEntry } from "./database";
+import {
+  fileKey,
+  type EquipotDb,
+  type LocalAttachment,
+  type LocalConflict,
+  type LocalFile,
+  type LocalSite,
+  type RecoveryEntry,
+} from "./database";
 import { cursorKey } from "./meta";
 
 const byName = (a: LocalSite, b: LocalSite) =>
@@ -50,4 +58,31 @@ export async function siteNames(db: EquipotDb, campaignId: string): Promise<Map<
   const sites = await db.sites.where("campaignId").equals(campaignId).toArray();
   const server = await db.serverSites.where("campaignId").equals(campaignId).toArray();
   return new Map([...server, ...sites].map((site) => [site.id, site.name]));
+}
+
+/** Photos and files attached to one record, oldest first, removed ones left out. */
+export async function listAttachments(
+  db: EquipotDb,
+  campaignId: string,
+  subjectId: string,
+): Promise<LocalAttachment[]> {
+  const all = await db.attachments.where("subject.id").equals(subjectId).toArray();
+  return all
+    .filter((a) => a.campaignId === campaignId && a.removedAt === null)
+    .sort((a, b) => a.createdAt.localeCompare(b.createdAt) || a.id.localeCompare(b.id));
+}
+
+/** The file's bytes and upload state on this device, or null when it is not here (yet). */
+export async function findFile(
+  db: EquipotDb,
+  campaignId: string,
+  sha256: string,
+): Promise<LocalFile | null> {
+  return (await db.files.get(fileKey(campaignId, sha256))) ?? null;
+}
+
+/** Files the server would not take, kept here so they can be saved elsewhere. */
+export async function listRefusedFiles(db: EquipotDb, campaignId: string): Promise<LocalFile[]> {
+  const all = await db.files.where("state").equals("refused").toArray();
+  return all.filter((f) => f.campaignId === campaignId);
 }

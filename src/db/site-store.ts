@@ -1,32 +1,17 @@
-// Local writes of sites: the working copy and its outbox entry in one transaction. The promise
-// resolves only after the transaction committed, so "saved" is never shown early.
+// Local writes of sites, each recorded with its outbox entry in one transaction (see outbox.ts).
 import type { SiteFormValues, SitePatch } from "../../shared/schemas/sites";
 import { sitePatchSchema, siteFormSchema } from "../../shared/schemas/sites";
 import type { MutationName } from "../../shared/sync/protocol";
 import type { EquipotDb } from "./database";
-import { takeMutationId } from "./meta";
-import { rebuildSiteViews } from "./site-view";
+import { recordMutation } from "./outbox";
 
-async function record(
+const record = (
   db: EquipotDb,
   campaignId: string,
   name: MutationName,
   entityId: string,
   args: unknown,
-) {
-  await db.transaction("rw", [db.meta, db.outbox, db.serverSites, db.sites], async () => {
-    const mutationId = await takeMutationId(db);
-    await db.outbox.add({
-      mutationId,
-      campaignId,
-      name,
-      args,
-      entityId,
-      createdAt: new Date().toISOString(),
-    });
-    await rebuildSiteViews(db, [entityId]);
-  });
-}
+) => recordMutation(db, { campaignId, name, entityId, args });
 
 export async function createSiteLocally(
   db: EquipotDb,
@@ -79,25 +64,22 @@ export async function resolveConflictLocally(
 ) {
   const conflict = await db.conflicts.get(conflictId);
   if (!conflict) throw new Error("This conflict is not on this device");
-  await db.transaction(
-    "rw",
-    [db.meta, db.outbox, db.serverSites, db.sites, db.conflicts],
-    async () => {
-      const mutationId = await takeMutationId(db);
-      await db.outbox.add({
-        mutationId,
-        campaignId,
-        name: "conflict.resolve",
-        args: { id: conflictId, value },
-        entityId: conflict.entityId,
-        field: conflict.field,
-        createdAt: new Date().toISOString(),
-      });
-      await db.conflicts.update(conflictId, {
-        resolvedAt: new Date().toISOString(),
-        resolvedValue: value,
-      });
-      await rebuildSiteViews(db, [conflict.entityId]);
+  await recordMutation(
+    db,
+    {
+      campaignId,
+      name: "conflict.resolve",
+      args: { id: conflictId, value },
+      entityId: conflict.entityId,
+      field: conflict.field,
+    },
+    {
+      tables: [db.conflicts],
+      write: () =>
+        db.conflicts.update(conflictId, {
+          resolvedAt: new Date().toISOString(),
+          resolvedValue: value,
+        }),
     },
   );
 }

@@ -50,7 +50,7 @@ export async function rebuildSiteViews(db: EquipotDb, ids: Iterable<string>): Pr
     const server = await db.serverSites.get(id);
     // Entries the server refused are not applied; they wait in recovery instead.
     const pending = (await db.outbox.where("entityId").equals(id).sortBy("mutationId")).filter(
-      (e) => e.result?.status !== "rejected",
+      (e) => !e.name.startsWith("attachment.") && e.result?.status !== "rejected",
     );
     let view: SiteView | undefined = server;
     for (const entry of pending) view = applyPending(view, entry);

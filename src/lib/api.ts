@@ -54,22 +54,13 @@ async function send(
   };
   if (body !== undefined) headers["Content-Type"] = "application/json";
   if (token !== null) headers.Authorization = `Bearer ${token}`;
-  try {
-    const response = await fetch(`${env.apiBase}${path}`, {
-      method,
-      headers,
-      body: body === undefined ? undefined : JSON.stringify(body),
-      credentials: "same-origin",
-      cache: "no-store",
-      signal,
-    });
-    reportReachable(true);
-    return response;
-  } catch (cause) {
-    if (signal?.aborted) throw cause;
-    reportReachable(false);
-    throw ApiError.network(cause);
-  }
+  return reachServer(path, {
+    method,
+    headers,
+    body: body === undefined ? undefined : JSON.stringify(body),
+    cache: "no-store",
+    signal,
+  });
 }
 
 const fallbackCodes: Record<number, ApiErrorCode> = {
@@ -93,14 +84,50 @@ async function readJson(response: Response): Promise<unknown> {
   }
 }
 
-async function toApiError(response: Response): Promise<ApiError> {
-  const parsed = errorBody.safeParse(await readJson(response));
+/** The server's error body (or, without one, its status) as an ApiError. */
+export function apiErrorFrom(status: number, body: unknown): ApiError {
+  const parsed = errorBody.safeParse(body);
   if (parsed.success) {
     const { code, message, details } = parsed.data.error;
-    return new ApiError(response.status, code, message, details ?? []);
+    return new ApiError(status, code, message, details ?? []);
   }
-  const code = fallbackCodes[response.status] ?? "internal";
-  return new ApiError(response.status, code, `The server answered with status ${response.status}.`);
+  const code = fallbackCodes[status] ?? "internal";
+  return new ApiError(status, code, `The server answered with status ${status}.`);
+}
+
+async function toApiError(response: Response): Promise<ApiError> {
+  return apiErrorFrom(response.status, await readJson(response));
+}
+
+/**
+ * For calls that do not speak JSON (file bytes): runs `attempt` with the headers every call needs,
+ * the access token among them, and once more after a refresh when the answer is 401.
+ */
+export async function withAccessToken<T extends { status: number }>(
+  attempt: (headers: Record<string, string>) => Promise<T>,
+): Promise<T> {
+  const headers = () => ({
+    [requestHeader.name]: requestHeader.value,
+    ...(accessToken === null ? {} : { Authorization: `Bearer ${accessToken}` }),
+  });
+  if (accessToken === null) await refreshSession();
+  const first = await attempt(headers());
+  if (first.status !== 401) return first;
+  await refreshSession();
+  return attempt(headers());
+}
+
+/** fetch() with the connectivity report and network failures as ApiError. */
+export async function reachServer(path: string, init: RequestInit): Promise<Response> {
+  try {
+    const response = await fetch(`${env.apiBase}${path}`, { credentials: "same-origin", ...init });
+    reportReachable(true);
+    return response;
+  } catch (cause) {
+    if (init.signal?.aborted) throw cause;
+    reportReachable(false);
+    throw ApiError.network(cause);
+  }
 }
 
 async function parseBody<S extends z.ZodType>(response: Response, schema: S): Promise<z.output<S>> {

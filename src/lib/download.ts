@@ -1,6 +1,9 @@
-// Saves data as a JSON file through the browser's download, with no server involved.
+// Saves data as a file through the browser's download, with no server involved.
 export function downloadJson(fileName: string, data: unknown): void {
-  const blob = new Blob([JSON.stringify(data, null, 2)], { type: "application/json" });
+  downloadBlob(fileName, new Blob([JSON.stringify(data, null, 2)], { type: "application/json" }));
+}
+
+export function downloadBlob(fileName: string, blob: Blob): void {
   const url = URL.createObjectURL(blob);
   const link = document.createElement("a");
   link.href = url;
@@ -13,7 +16,7 @@ export function downloadJson(fileName: string, data: unknown): void {
 }
 
 /** "equipot-outbox-2027-06-03T1405Z.json" */
-export function exportFileName(kind: string, at = new Date()): string {
+export function exportFileName(kind: string, at = new Date(), extension = "json"): string {
   const stamp = at.toISOString().slice(0, 16).replace(/:/g, "");
-  return `equipot-${kind}-${stamp}Z.json`;
+  return `equipot-${kind}-${stamp}Z.${extension}`;
 }

@@ -1,17 +1,25 @@
 // The sync engine: plain TypeScript, no React. One instance per signed-in user and device.
-// A run pushes the outbox in order, in batches, then pulls every campaign's changes until caught up.
+// A run uploads waiting files, pushes the outbox in order, in batches, then pulls every campaign's
+// changes until caught up.
 import { defaultPullPage, protocolVersion } from "../../shared/sync/protocol";
 import type { EquipotDb, OutboxEntry } from "../db/database";
 import { cursorKey, ensureClientId, readMeta, writeMeta } from "../db/meta";
 import { applyPulledPage } from "./apply-pull";
+import { uploadFiles } from "./upload-files";
 import { SyncError, type SyncTransport } from "./transport";
 
 export interface SyncStatus {
   running: boolean;
+  /** Changes in the outbox, not yet confirmed by the server. */
   pending: number;
+  /** Photos and files whose bytes the server does not have yet. */
+  pendingFiles: number;
   oldestPendingAt: string | null;
   lastSuccessAt: string | null;
-  progress: { done: number; total: number } | null;
+  /** Files are counted in bytes, changes one by one. */
+  progress: { phase: "files" | "changes"; done: number; total: number } | null;
+  /** The file being sent now, for its own progress bar. */
+  upload: { key: string; sentBytes: number; totalBytes: number } | null;
   error: { kind: SyncError["kind"]; message: string } | null;
 }
 
@@ -48,9 +56,11 @@ export function createSyncEngine(options: SyncEngineOptions) {
   let status: SyncStatus = {
     running: false,
     pending: 0,
+    pendingFiles: 0,
     oldestPendingAt: null,
     lastSuccessAt: null,
     progress: null,
+    upload: null,
     error: null,
   };
   let current: Promise<void> | undefined;
@@ -64,8 +74,17 @@ export function createSyncEngine(options: SyncEngineOptions) {
   async function refreshCounts(): Promise<void> {
     const pending = await db.outbox.count();
     const oldest = await db.outbox.orderBy("mutationId").first();
+    const waiting = await db.files.where("state").equals("waiting").toArray();
     const lastSuccessAt = await readMeta<string | null>(db, lastSuccessKey, null);
-    setStatus({ pending, oldestPendingAt: oldest?.createdAt ?? null, lastSuccessAt });
+    const times = [oldest?.createdAt, ...waiting.map((f) => f.addedAt)].filter(
+      (t): t is string => t !== undefined,
+    );
+    setStatus({
+      pending,
+      pendingFiles: waiting.length,
+      oldestPendingAt: times.sort()[0] ?? null,
+      lastSuccessAt,
+    });
   }
 
   async function pushAll(clientId: string): Promise<void> {
@@ -86,7 +105,7 @@ export function createSyncEngine(options: SyncEngineOptions) {
           await db.outbox.update(result.mutationId, { result });
       });
       done += group.length;
-      setStatus({ progress: { done, total: unsent.length } });
+      setStatus({ progress: { phase: "changes", done, total: unsent.length } });
     }
   }
 
@@ -94,11 +113,13 @@ export function createSyncEngine(options: SyncEngineOptions) {
     let pulled = 0;
     for (;;) {
       const cursor = await readMeta<number>(db, cursorKey(campaignId), 0);
+      const pendingFrom = (await db.outbox.orderBy("mutationId").first())?.mutationId;
       const page = await transport.pull({
         campaign: campaignId,
         clientId,
         cursor,
         limit: pullPage,
+        pendingFrom,
       });
       await applyPulledPage(db, campaignId, page);
       pulled += page.changes.length;
@@ -110,6 +131,8 @@ export function createSyncEngine(options: SyncEngineOptions) {
     setStatus({ running: true, error: null, progress: null });
     try {
       const clientId = await ensureClientId(db);
+      // Bytes first, so that colleagues who pull a link can usually fetch its file at once.
+      if (transport.files) await uploadFiles(db, transport.files, setStatus);
       await pushAll(clientId);
       let pulled = 0;
       for (const campaignId of options.campaignIds())
@@ -128,7 +151,7 @@ export function createSyncEngine(options: SyncEngineOptions) {
       throw known;
     } finally {
       await refreshCounts();
-      setStatus({ running: false, progress: null });
+      setStatus({ running: false, progress: null, upload: null });
     }
   }
 

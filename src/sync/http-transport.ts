@@ -2,7 +2,7 @@
 import type { z } from "zod";
 import { protocolVersion, pullResponse, pushResponse } from "../../shared/sync/protocol";
 import { ApiError } from "../lib/api-error";
-import { SyncError, type SyncTransport } from "./transport";
+import { SyncError, type FileTransport, type SyncTransport } from "./transport";
 
 type Request = <S extends z.ZodType>(
   path: string,
@@ -34,8 +34,35 @@ function explain(error: unknown): SyncError {
   return new SyncError(error.message, "refused");
 }
 
-export function createHttpTransport(request: Request): SyncTransport {
+/** Refusals a file will always get (type, size, role); anything else is worth another try. */
+const refusedForGood = new Set([403, 413, 415]);
+
+function explainFile(error: unknown): SyncError {
+  if (error instanceof ApiError && refusedForGood.has(error.status))
+    return new SyncError(error.message, "refused");
+  if (error instanceof ApiError && error.status === 400)
+    return new SyncError(`A file was not accepted this time: ${error.message}`, "server");
+  return explain(error);
+}
+
+export function createHttpTransport(request: Request, fileCalls?: FileTransport): SyncTransport {
   return {
+    files: fileCalls && {
+      async exists(campaignId, sha256) {
+        try {
+          return await fileCalls.exists(campaignId, sha256);
+        } catch (error) {
+          throw explainFile(error);
+        }
+      },
+      async upload(file, onProgress) {
+        try {
+          await fileCalls.upload(file, onProgress);
+        } catch (error) {
+          throw explainFile(error);
+        }
+      },
+    },
     async push(body) {
       try {
         return await request("/sync/push", { method: "POST", body, schema: pushResponse });
@@ -43,7 +70,7 @@ export function createHttpTransport(request: Request): SyncTransport {
         throw explain(error);
       }
     },
-    async pull({ campaign, clientId, cursor, limit }) {
+    async pull({ campaign, clientId, cursor, limit, pendingFrom }) {
       const query = new URLSearchParams({
         protocolVersion: String(protocolVersion),
         campaign,
@@ -51,6 +78,7 @@ export function createHttpTransport(request: Request): SyncTransport {
         cursor: String(cursor),
         limit: String(limit),
       });
+      if (pendingFrom !== undefined) query.set("pendingFrom", String(pendingFrom));
       try {
         return await request(`/sync/pull?${query.toString()}`, { schema: pullResponse });
       } catch (error) {

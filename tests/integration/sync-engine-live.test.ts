@@ -3,9 +3,12 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { IDBFactory, IDBKeyRange } from "fake-indexeddb";
 import type { z } from "zod";
 import { openDatabase } from "../../src/db/database";
+import { addAttachmentLocally } from "../../src/db/attachment-store";
+import { listAttachments, listRefusedFiles } from "../../src/db/queries";
 import { createSiteLocally, updateSiteLocally } from "../../src/db/site-store";
 import { createSyncEngine } from "../../src/sync/engine";
 import { createHttpTransport } from "../../src/sync/http-transport";
+import type { FileTransport } from "../../src/sync/transport";
 import { ApiError } from "../../src/lib/api-error";
 import { demoPassword } from "../../server/seed/demo";
 import { startServer, type RunningServer } from "../../server/index";
@@ -53,6 +56,47 @@ function requester(token: string) {
     return options.schema.parse(body) as z.output<S>;
   };
 }
+
+/** Files over fetch (Node has no XMLHttpRequest); counts the uploads that really went out. */
+function fileCalls(token: string, uploads: string[]): FileTransport {
+  const url = (campaign: string, sha: string) =>
+    `${server.url}/api/campaigns/${campaign}/attachments/${sha}`;
+  const fail = async (res: Response) => {
+    const body = (await res.json().catch(() => ({}))) as { error?: { message?: string } };
+    throw new ApiError(res.status, "bad_request", body.error?.message ?? `status ${res.status}`);
+  };
+  return {
+    async exists(campaign, sha) {
+      const res = await fetch(url(campaign, sha), {
+        method: "HEAD",
+        headers: { authorization: `Bearer ${token}` },
+      });
+      if (res.status === 404) return false;
+      if (!res.ok) await fail(res);
+      return true;
+    },
+    async upload(file, onProgress) {
+      const res = await fetch(url(file.campaignId, file.sha256), {
+        method: "PUT",
+        headers: {
+          authorization: `Bearer ${token}`,
+          "content-type": "application/octet-stream",
+          "x-file-name": encodeURIComponent(file.name),
+        },
+        body: file.bytes,
+      });
+      if (!res.ok) await fail(res);
+      uploads.push(file.sha256);
+      onProgress(file.bytes.byteLength);
+    },
+  };
+}
+
+// A 1×1 PNG: the server decides the type from these bytes, not from anything the client says.
+const tinyPng = Buffer.from(
+  "iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==",
+  "base64",
+);
 
 beforeAll(async () => {
   database = await createTestDatabase();
@@ -152,6 +196,92 @@ describe("engine against the real server", () => {
     expect(kept).toHaveLength(1);
     expect(kept[0]).toMatchObject({ name: "site.create", reason: expect.stringMatching(/role/) });
     expect(await db.sites.filter((s) => s.name === "Reviewer tried").count()).toBe(0);
+  });
+
+  it("sends a photo's bytes once, links it to a site, and another tablet fetches the same bytes", async () => {
+    const tokenA = await signIn("field");
+    const tokenB = await signIn("logistics");
+    const uploadsA: string[] = [];
+    const uploadsB: string[] = [];
+    const dbA = newDb();
+    const dbB = newDb();
+    const engineA = createSyncEngine({
+      db: dbA,
+      transport: createHttpTransport(requester(tokenA), fileCalls(tokenA, uploadsA)),
+      campaignIds: () => [campaignId],
+    });
+    const engineB = createSyncEngine({
+      db: dbB,
+      transport: createHttpTransport(requester(tokenB), fileCalls(tokenB, uploadsB)),
+      campaignIds: () => [campaignId],
+    });
+    const siteId = await createSiteLocally(dbA, campaignId, {
+      name: "Photo site",
+      kind: "mountain",
+      latitudeDeg: 46,
+      longitudeDeg: 9,
+      approxHeightM: 2000,
+      notes: "",
+    });
+    const bytes = tinyPng.buffer.slice(tinyPng.byteOffset, tinyPng.byteOffset + tinyPng.length);
+    const photo = {
+      subject: { kind: "site" as const, id: siteId },
+      bytes,
+      contentType: "image/png" as const,
+      name: "plinth.png",
+      caption: "Plinth before levelling",
+    };
+    const linkId = await addAttachmentLocally(dbA, campaignId, photo);
+    await engineA.sync();
+    expect(uploadsA).toHaveLength(1);
+    expect(await dbA.outbox.count()).toBe(0);
+
+    await engineB.sync();
+    const [seen] = await listAttachments(dbB, campaignId, siteId);
+    expect(seen).toMatchObject({ id: linkId, caption: "Plinth before levelling", pending: false });
+    const res = await fetch(
+      `${server.url}/api/campaigns/${campaignId}/attachments/${seen?.sha256}`,
+      {
+        headers: { authorization: `Bearer ${tokenB}` },
+      },
+    );
+    expect(res.headers.get("content-type")).toBe("image/png");
+    expect(Buffer.from(await res.arrayBuffer()).equals(tinyPng)).toBe(true);
+
+    // The same bytes attached on B are already on the server: no second upload.
+    await addAttachmentLocally(dbB, campaignId, { ...photo, caption: "Same photo from B" });
+    await engineB.sync();
+    expect(uploadsB).toEqual([]);
+    expect((await dbB.files.toArray()).map((f) => f.state)).toEqual(["sent"]);
+  });
+
+  it("keeps a file whose bytes the server refuses, with its reason", async () => {
+    const token = await signIn("field");
+    const db = newDb();
+    const engine = createSyncEngine({
+      db,
+      transport: createHttpTransport(requester(token), fileCalls(token, [])),
+      campaignIds: () => [campaignId],
+    });
+    const siteId = await createSiteLocally(db, campaignId, {
+      name: "Script site",
+      kind: "other",
+      latitudeDeg: 1,
+      longitudeDeg: 1,
+      approxHeightM: 1,
+      notes: "",
+    });
+    // Declared a JPEG, but the bytes are a script: the server sniffs and refuses it.
+    await addAttachmentLocally(db, campaignId, {
+      subject: { kind: "site", id: siteId },
+      bytes: new TextEncoder().encode("<script>alert(1)</script>").buffer as ArrayBuffer,
+      contentType: "image/jpeg",
+      name: "not-a-photo.jpg",
+    });
+    await engine.sync();
+    const [file] = await listRefusedFiles(db, campaignId);
+    expect(file?.refusal).toMatch(/Accepted:/);
+    expect(engine.getStatus().pendingFiles).toBe(0);
   });
 
   it("explains an unreachable server in plain words and keeps the outbox", async () => {

@@ -1,4 +1,4 @@
-import { and, asc, eq, gt } from "drizzle-orm";
+import { and, asc, between, eq, gt } from "drizzle-orm";
 import type { Queryable } from "../client";
 import { conflicts, sites, syncClients, syncRejections } from "../schema";
 
@@ -34,6 +34,14 @@ export async function advanceSyncClient(q: Queryable, clientId: string, lastMuta
 export async function recordRejection(q: Queryable, row: typeof syncRejections.$inferInsert) {
   await q.insert(syncRejections).values(row);
 }
+
+/** The client's refused mutations in an id range, oldest first (one client's own record). */
+export const rejectionsBetween = (q: Queryable, clientId: string, from: number, to: number) =>
+  q
+    .select({ mutationId: syncRejections.mutationId, reason: syncRejections.reason })
+    .from(syncRejections)
+    .where(and(eq(syncRejections.clientId, clientId), between(syncRejections.mutationId, from, to)))
+    .orderBy(asc(syncRejections.mutationId));
 
 export async function insertConflict(
   q: Queryable,

@@ -7,6 +7,7 @@ import {
   mutationSchemas,
   type MutationEnvelope,
 } from "../../../shared/sync/protocol";
+import { applyAttachmentAdd, applyAttachmentRemove } from "./attachment-mutations";
 import { applyConflictResolve } from "./conflict-mutations";
 import { Rejection, type ApplyContext, type ApplyOutcome } from "./context";
 import { applySiteCreate, applySiteDelete, applySiteUpdate } from "./site-mutations";
@@ -54,6 +55,16 @@ export async function applyMutation(
       return applyConflictResolve(
         full,
         parseArgs("conflict.resolve", mutationSchemas["conflict.resolve"], mutation.args),
+      );
+    case "attachment.add":
+      return applyAttachmentAdd(
+        full,
+        parseArgs("attachment.add", mutationSchemas["attachment.add"], mutation.args),
+      );
+    case "attachment.remove":
+      return applyAttachmentRemove(
+        full,
+        parseArgs("attachment.remove", mutationSchemas["attachment.remove"], mutation.args),
       );
   }
 }

@@ -2,14 +2,52 @@
 // why a cursor can never skip a change that committed late).
 import type { z } from "zod";
 import type { ChangeRecord, PullResponse, pullQuery } from "../../../shared/sync/protocol";
-import type { Db } from "../../db/client";
-import { conflictsAfter, findSyncClient, sitesAfter } from "../../db/repositories/sync";
+import type { Db, Tx } from "../../db/client";
+import { attachmentLinksAfter } from "../../db/repositories/attachment-links";
+import {
+  conflictsAfter,
+  findSyncClient,
+  rejectionsBetween,
+  sitesAfter,
+} from "../../db/repositories/sync";
 import { forbidden } from "../../http-errors";
+import { presentAttachmentLink } from "../../presenters/attachment-link";
 import { presentConflict } from "../../presenters/conflict";
 import { presentSite } from "../../presenters/site";
 import { assertProtocol } from "./push";
 
 type PullQuery = z.output<typeof pullQuery>;
+type Source = (
+  tx: Tx,
+  campaignId: string,
+  cursor: number,
+  limit: number,
+) => Promise<ChangeRecord[]>;
+
+/** Every synced table, each read after the cursor; a new entity adds one line here. */
+const sources: Source[] = [
+  async (tx, ...range) =>
+    (await sitesAfter(tx, ...range)).map((r) => ({
+      entity: "site",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentSite(r),
+    })),
+  async (tx, ...range) =>
+    (await conflictsAfter(tx, ...range)).map((r) => ({
+      entity: "conflict",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentConflict(r),
+    })),
+  async (tx, ...range) =>
+    (await attachmentLinksAfter(tx, ...range)).map((r) => ({
+      entity: "attachment",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentAttachmentLink(r),
+    })),
+];
 
 export async function pull(db: Db, userId: string, query: PullQuery): Promise<PullResponse> {
   assertProtocol(query.protocolVersion);
@@ -17,37 +55,30 @@ export async function pull(db: Db, userId: string, query: PullQuery): Promise<Pu
   return db.transaction(
     async (tx) => {
       const { campaign, cursor, limit } = query;
-      const [siteRows, conflictRows] = await Promise.all([
-        sitesAfter(tx, campaign, cursor, limit + 1),
-        conflictsAfter(tx, campaign, cursor, limit + 1),
-      ]);
-      const all: ChangeRecord[] = [
-        ...siteRows.map((r): ChangeRecord => ({
-          entity: "site",
-          seq: r.changeSeq,
-          id: r.id,
-          data: presentSite(r),
-        })),
-        ...conflictRows.map((r): ChangeRecord => ({
-          entity: "conflict",
-          seq: r.changeSeq,
-          id: r.id,
-          data: presentConflict(r),
-        })),
-      ].sort((a, b) => a.seq - b.seq);
+      // Each source reads one row past the page, so "more" is known without a count.
+      const read = await Promise.all(
+        sources.map((source) => source(tx, campaign, cursor, limit + 1)),
+      );
+      const all = read.flat().sort((a, b) => a.seq - b.seq);
       const changes = all.slice(0, limit);
+      const hasMore = all.length > limit;
       let lastMutationId: number | null = null;
+      let rejections: PullResponse["rejections"] = [];
       if (query.clientId) {
         const client = await findSyncClient(tx, query.clientId);
         if (client && client.userId !== userId)
           throw forbidden("This device is registered to another user");
         lastMutationId = client?.lastMutationId ?? 0;
+        // Named on the last page only: that is where the client lets confirmed entries go.
+        if (client && !hasMore && query.pendingFrom !== undefined)
+          rejections = await rejectionsBetween(tx, client.id, query.pendingFrom, lastMutationId);
       }
       return {
         changes,
         cursor: changes.at(-1)?.seq ?? cursor,
-        hasMore: all.length > limit,
+        hasMore,
         lastMutationId,
+        rejections,
       };
     },
     { isolationLevel: "repeatable read", accessMode: "read only" },

@@ -11,7 +11,11 @@ export function ConflictsRoute() {
   const { campaignId, role } = useCampaign();
   const { userId } = useLocalSync();
   const review = useCampaignReview(campaignId);
-  if (review.conflicts === undefined || review.recovery === undefined) {
+  if (
+    review.conflicts === undefined ||
+    review.recovery === undefined ||
+    review.refusedFiles === undefined
+  ) {
     return <Loading label="Reading this device…" />;
   }
   return (
@@ -35,7 +39,12 @@ export function ConflictsRoute() {
           Changes from this device that the server refused, with its reason. Nothing is lost:
           download them to enter again or to pass on.
         </p>
-        <RecoveryList campaignId={campaignId} entries={review.recovery} names={review.names} />
+        <RecoveryList
+          campaignId={campaignId}
+          entries={review.recovery}
+          files={review.refusedFiles}
+          names={review.names}
+        />
       </section>
     </>
   );

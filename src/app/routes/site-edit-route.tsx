@@ -1,5 +1,6 @@
 import { useNavigate, useParams } from "react-router-dom";
 import { can } from "../../../shared/permissions";
+import { AttachmentPanel } from "../../features/attachments/components/attachment-panel";
 import { DeleteSiteControl } from "../../features/sites/components/delete-site-control";
 import { EditSiteForm } from "../../features/sites/components/edit-site-form";
 import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
@@ -45,6 +46,11 @@ export function SiteEditRoute() {
     <>
       <PageHeader title={`Edit ${site.name}`} lead={lead} />
       <EditSiteForm campaignId={campaignId} site={site} cancelHref={back} onSaved={onSaved} />
+      <AttachmentPanel
+        campaignId={campaignId}
+        subject={{ kind: "site", id: site.id, label: site.name }}
+        canAdd={can(role, "attachment.write")}
+      />
       {can(role, "site.delete") && (
         <section aria-label="Delete" className="mt-10 border-t-2 border-line pt-6">
           <DeleteSiteControl

@@ -36,6 +36,8 @@ export const changeKindLabels: Record<MutationName, string> = {
   "site.update": "Change to a site",
   "site.delete": "Deletion of a site",
   "conflict.resolve": "Choice in a conflict",
+  "attachment.add": "Photo or file",
+  "attachment.remove": "Removal of a photo or file",
 };
 
 /** The site a refused change was about, by its typed name or by the name known on this device. */

@@ -76,6 +76,7 @@ describe("listSites and findSite", () => {
       cursor: 3,
       hasMore: false,
       lastMutationId: null,
+      rejections: [],
     });
     await createSiteLocally(db, campaignId, values("Aspen"));
     await createSiteLocally(db, otherCampaign, values("Abele"));
@@ -104,6 +105,7 @@ describe("hasPulled", () => {
       cursor: 0,
       hasMore: false,
       lastMutationId: null,
+      rejections: [],
     });
     expect(await hasPulled(db, campaignId)).toBe(true);
     expect(await hasPulled(db, otherCampaign)).toBe(false);
@@ -135,7 +137,7 @@ describe("conflicts and recovery", () => {
       });
     expect((await listRecovery(db, campaignId)).map((e) => e.mutationId)).toEqual([7, 3]);
     const file = await exportRecovery(db, campaignId);
-    expect(file).toMatchObject({ kind: "equipot-recovery", clientId, localSchemaVersion: 1 });
+    expect(file).toMatchObject({ kind: "equipot-recovery", clientId, localSchemaVersion: 2 });
     expect(file.entries.map((e) => e.mutationId)).toEqual([3, 7]);
     expect(file.entries[0]?.reason).toBe("Your role may not change sites");
   });
@@ -180,6 +182,7 @@ describe("resolving a conflict", () => {
       cursor: 1,
       hasMore: false,
       lastMutationId: null,
+      rejections: [],
     });
     const open = conflict({
       entityId: site.id,

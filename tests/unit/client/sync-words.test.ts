@@ -13,9 +13,11 @@ import type { SyncStatus } from "../../../src/sync/engine";
 const status = (oldestPendingAt: string | null): SyncStatus => ({
   running: false,
   pending: oldestPendingAt === null ? 0 : 1,
+  pendingFiles: 0,
   oldestPendingAt,
   lastSuccessAt: null,
   progress: null,
+  upload: null,
   error: null,
 });
 

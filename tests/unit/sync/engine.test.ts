@@ -1,13 +1,6 @@
-// Store and engine on fake-indexeddb with a small in-memory stand-in for the server's sync API.
+// Store and engine on fake-indexeddb with a small in-memory stand-in for the server (helpers/fake-sync).
 import { describe, expect, it } from "vitest";
 import { IDBFactory, IDBKeyRange } from "fake-indexeddb";
-import type { SiteView } from "../../../shared/schemas/sites";
-import type {
-  ChangeRecord,
-  PullResponse,
-  PushRequest,
-  PushResponse,
-} from "../../../shared/sync/protocol";
 import { openDatabase } from "../../../src/db/database";
 import {
   createSiteLocally,
@@ -15,8 +8,7 @@ import {
   updateSiteLocally,
 } from "../../../src/db/site-store";
 import { applyPulledPage } from "../../../src/sync/apply-pull";
-import { createSyncEngine } from "../../../src/sync/engine";
-import type { PullParams, SyncTransport } from "../../../src/sync/transport";
+import { engineFor, fakeServer, newDb, type FakeServer } from "../../helpers/fake-sync";
 
 const campaignId = crypto.randomUUID();
 const values = {
@@ -28,75 +20,9 @@ const values = {
   notes: "",
 };
 
-function fakeServer() {
-  const sites = new Map<string, SiteView & { seq: number }>();
-  const last = new Map<string, number>();
-  let seq = 0;
-  const pushes: PushRequest[] = [];
-  let failNextPushAfterApply = false;
-  const transport: SyncTransport = {
-    async push(request): Promise<PushResponse> {
-      pushes.push(request);
-      let applied = last.get(request.clientId) ?? 0;
-      const results = request.mutations.map((m) => {
-        if (m.mutationId <= applied)
-          return { mutationId: m.mutationId, status: "duplicate" as const };
-        applied = m.mutationId;
-        const args = m.args as { id: string; changes?: Partial<SiteView> };
-        const existing = sites.get(args.id);
-        if (m.name === "site.create")
-          sites.set(args.id, {
-            ...(m.args as SiteView),
-            campaignId,
-            version: 1,
-            updatedAt: m.createdAt,
-            updatedBy: null,
-            deletedAt: null,
-            seq: ++seq,
-          });
-        if (m.name === "site.update" && existing)
-          sites.set(args.id, {
-            ...existing,
-            ...args.changes,
-            version: existing.version + 1,
-            seq: ++seq,
-          });
-        if (m.name === "site.delete" && existing)
-          sites.set(args.id, { ...existing, deletedAt: m.createdAt, seq: ++seq });
-        return { mutationId: m.mutationId, status: "applied" as const };
-      });
-      last.set(request.clientId, applied);
-      if (failNextPushAfterApply) {
-        failNextPushAfterApply = false;
-        throw new Error("response lost");
-      }
-      return { results, lastMutationId: applied };
-    },
-    async pull({ cursor, limit, clientId }: PullParams): Promise<PullResponse> {
-      const all = [...sites.values()].filter((s) => s.seq > cursor).sort((a, b) => a.seq - b.seq);
-      const page = all.slice(0, limit);
-      const changes: ChangeRecord[] = page.map(({ seq: s, ...data }) => ({
-        entity: "site",
-        seq: s,
-        id: data.id,
-        data,
-      }));
-      return {
-        changes,
-        cursor: page.at(-1)?.seq ?? cursor,
-        hasMore: all.length > limit,
-        lastMutationId: last.get(clientId) ?? 0,
-      };
-    },
-  };
-  return { transport, sites, pushes, loseNextResponse: () => (failNextPushAfterApply = true) };
-}
-
-const engineFor = (db: ReturnType<typeof openDatabase>, server: ReturnType<typeof fakeServer>) =>
-  createSyncEngine({ db, transport: server.transport, campaignIds: () => [campaignId] });
-
-const newDb = () =>
-  openDatabase(`t-${crypto.randomUUID()}`, { indexedDB: new IDBFactory(), IDBKeyRange });
+const newServer = () => fakeServer(campaignId);
+const engineOf = (db: ReturnType<typeof newDb>, server: FakeServer) =>
+  engineFor(db, server, campaignId);
 
 describe("local store", () => {
   it("writes the working copy and the outbox entry together, with increasing mutation ids", async () => {
@@ -138,14 +64,8 @@ describe("local store", () => {
 describe("sync engine", () => {
   it("pushes in order, pulls, and drops outbox entries only once a pull confirms them", async () => {
     const db = newDb();
-    const server = fakeServer();
-    const engine = createSyncEngine({
-      db,
-      transport: server.transport,
-      campaignIds: () => [campaignId],
-      pushBatch: 2,
-      pullPage: 2,
-    });
+    const server = newServer();
+    const engine = engineFor(db, server, campaignId, { pushBatch: 2, pullPage: 2 });
     const a = await createSiteLocally(db, campaignId, values);
     const b = await createSiteLocally(db, campaignId, { ...values, name: "Second" });
     await updateSiteLocally(db, campaignId, a, { notes: "Door sticks" });
@@ -172,10 +92,10 @@ describe("sync engine", () => {
 
   it("resends after a lost response without doubling anything", async () => {
     const db = newDb();
-    const server = fakeServer();
-    const engine = engineFor(db, server);
+    const server = newServer();
+    const engine = engineOf(db, server);
     const id = await createSiteLocally(db, campaignId, values);
-    server.loseNextResponse();
+    server.controls.loseNextResponse = true;
     await expect(engine.sync()).rejects.toThrow();
     expect(await db.outbox.count()).toBe(1);
     expect(engine.getStatus().error?.kind).toBe("server");
@@ -188,8 +108,8 @@ describe("sync engine", () => {
 
   it("keeps local edits on top of newer server data until they are confirmed", async () => {
     const db = newDb();
-    const server = fakeServer();
-    const engine = engineFor(db, server);
+    const server = newServer();
+    const engine = engineOf(db, server);
     const id = await createSiteLocally(db, campaignId, values);
     await engine.sync();
     const synced = await db.serverSites.get(id);
@@ -203,6 +123,7 @@ describe("sync engine", () => {
       cursor: 99,
       hasMore: false,
       lastMutationId: 1,
+      rejections: [],
     });
     expect(await db.sites.get(id)).toMatchObject({
       name: "Mine, not yet sent",

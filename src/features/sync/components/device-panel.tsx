@@ -6,7 +6,7 @@ import { askPersistence, formatBytes, refreshEstimate } from "../../../lib/devic
 import { useDeviceStorage } from "../../../lib/use-device-storage";
 import { useSyncStatus } from "../../../lib/sync-context";
 import { useDownloads } from "../hooks/use-sync-data";
-import { changesWord } from "./sync-bar";
+import { waitingWords } from "./sync-bar";
 
 function Persistence({ persisted }: { persisted: boolean | null }) {
   if (persisted === true) {
@@ -52,6 +52,7 @@ export function DevicePanel() {
   const storage = useDeviceStorage();
   const status = useSyncStatus();
   const downloads = useDownloads();
+  const waiting = waitingWords(status);
   return (
     <div className="flex max-w-3xl flex-col gap-6">
       <section aria-labelledby="device-storage" className="flex flex-col gap-3">
@@ -69,13 +70,15 @@ export function DevicePanel() {
           Changes not yet sent
         </h2>
         <p>
-          {status.pending === 0
+          {waiting === null
             ? "None: the server has every change made on this device."
-            : `${changesWord(status.pending)} ${status.pending === 1 ? "waits" : "wait"} on this device for the server.`}
+            : `${waiting} ${status.pending + status.pendingFiles === 1 ? "waits" : "wait"} on this device for the server.`}
         </p>
         <div>
-          <Button disabled={status.pending === 0} onClick={() => void downloads.outbox()}>
-            Download unsent changes (JSON)
+          <Button disabled={waiting === null} onClick={() => void downloads.outbox()}>
+            {status.pendingFiles > 0
+              ? "Download unsent changes and files (ZIP)"
+              : "Download unsent changes (JSON)"}
           </Button>
         </div>
       </section>

@@ -4,6 +4,7 @@ import type { ReactNode } from "react";
 import { Button } from "../../../components/button";
 import { StatusShape, type StatusShapeName } from "../../../components/status-shape";
 import { cx } from "../../../lib/cx";
+import { formatBytes } from "../../../lib/device-storage";
 import { formatLocalBeside, formatUtc } from "../../../lib/format";
 import { useLocalSync, useSyncStatus } from "../../../lib/sync-context";
 import type { SyncStatus } from "../../../sync/engine";
@@ -14,14 +15,26 @@ export const isOldPending = (status: SyncStatus, nowMs = Date.now()) =>
   status.oldestPendingAt !== null && nowMs - Date.parse(status.oldestPendingAt) > dayMs;
 
 export const changesWord = (count: number) => (count === 1 ? "1 change" : `${count} changes`);
+export const filesWord = (count: number) =>
+  count === 1 ? "1 photo or file" : `${count} photos or files`;
+
+/** "3 changes and 1 photo or file", or null when nothing waits. */
+export function waitingWords(status: Pick<SyncStatus, "pending" | "pendingFiles">): string | null {
+  const parts = [
+    status.pending > 0 ? changesWord(status.pending) : null,
+    status.pendingFiles > 0 ? filesWord(status.pendingFiles) : null,
+  ].filter((part): part is string => part !== null);
+  return parts.length === 0 ? null : parts.join(" and ");
+}
 
 // The words change only when the count does, so a routine check every 30 s is not announced.
 function summaryOf(status: SyncStatus): { word: string; shape: StatusShapeName } {
-  if (status.pending === 0 && status.lastSuccessAt === null)
+  const waiting = waitingWords(status);
+  if (waiting === null && status.lastSuccessAt === null)
     return { word: "Nothing to send yet", shape: "dots" };
-  if (status.pending === 0)
+  if (waiting === null)
     return { word: "All changes sent", shape: status.running ? "dots" : "disc" };
-  return { word: `${changesWord(status.pending)} not yet sent`, shape: "dots" };
+  return { word: `${waiting} not yet sent`, shape: "dots" };
 }
 
 function LastSync({ at }: { at: string | null }) {
@@ -35,9 +48,13 @@ function LastSync({ at }: { at: string | null }) {
 
 function Progress({ progress }: { progress: SyncStatus["progress"] }) {
   if (progress === null) return null;
+  const words =
+    progress.phase === "files"
+      ? `Sending photos and files: ${formatBytes(progress.done)} of ${formatBytes(progress.total)}`
+      : `Sending ${progress.done} of ${changesWord(progress.total)}`;
   return (
     <label className="flex items-center gap-2 text-sm tabular-nums">
-      Sending {progress.done} of {progress.total}
+      {words}
       <progress className="h-3 w-32" max={progress.total} value={progress.done} />
     </label>
   );

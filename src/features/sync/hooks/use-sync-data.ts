@@ -1,15 +1,18 @@
 // Conflicts and refused changes of a campaign, live from this device's store.
 import { useLiveQuery } from "dexie-react-hooks";
-import type { LocalConflict, RecoveryEntry } from "../../../db/database";
-import { exportOutbox, exportRecovery } from "../../../db/export";
-import { listOpenConflicts, listRecovery, siteNames } from "../../../db/queries";
+import type { LocalConflict, LocalFile, RecoveryEntry } from "../../../db/database";
+import { exportOutbox, exportRecovery, unsentFiles } from "../../../db/export";
+import { listOpenConflicts, listRecovery, listRefusedFiles, siteNames } from "../../../db/queries";
+import { dismissRecovery, forgetRefusedFile } from "../../../db/recovery-store";
 import { resolveConflictLocally } from "../../../db/site-store";
-import { downloadJson, exportFileName } from "../../../lib/download";
+import { downloadBlob, downloadJson, exportFileName } from "../../../lib/download";
+import { zipUnsent } from "../zip-unsent";
 import { useLocalSync } from "../../../lib/sync-context";
 
 export interface CampaignReview {
   conflicts: LocalConflict[] | undefined;
   recovery: RecoveryEntry[] | undefined;
+  refusedFiles: LocalFile[] | undefined;
   names: Map<string, string>;
 }
 
@@ -17,14 +20,23 @@ export function useCampaignReview(campaignId: string): CampaignReview {
   const { db } = useLocalSync();
   const conflicts = useLiveQuery(() => listOpenConflicts(db, campaignId), [db, campaignId]);
   const recovery = useLiveQuery(() => listRecovery(db, campaignId), [db, campaignId]);
+  const refusedFiles = useLiveQuery(() => listRefusedFiles(db, campaignId), [db, campaignId]);
   const names = useLiveQuery(() => siteNames(db, campaignId), [db, campaignId], new Map());
-  return { conflicts, recovery, names };
+  return { conflicts, recovery, refusedFiles, names };
 }
 
-/** How many things in the campaign wait for a person: open conflicts plus refused changes. */
+/** How many things in the campaign wait for a person: open conflicts, refused changes and files. */
 export function useReviewCount(campaignId: string): number {
-  const { conflicts, recovery } = useCampaignReview(campaignId);
-  return (conflicts?.length ?? 0) + (recovery?.length ?? 0);
+  const { conflicts, recovery, refusedFiles } = useCampaignReview(campaignId);
+  return (conflicts?.length ?? 0) + (recovery?.length ?? 0) + (refusedFiles?.length ?? 0);
+}
+
+export function useRecoveryActions(campaignId: string) {
+  const { db } = useLocalSync();
+  return {
+    dismiss: (id: number) => dismissRecovery(db, id),
+    forgetFile: (sha256: string) => forgetRefusedFile(db, campaignId, sha256),
+  };
 }
 
 export function useResolveConflict(campaignId: string) {
@@ -38,8 +50,16 @@ export function useResolveConflict(campaignId: string) {
 export function useDownloads() {
   const { db } = useLocalSync();
   return {
+    /** JSON alone, or a ZIP holding the JSON and the bytes when photos or files wait too. */
     async outbox() {
-      downloadJson(exportFileName("unsent-changes"), await exportOutbox(db));
+      const changes = await exportOutbox(db);
+      const files = await unsentFiles(db);
+      if (files.length === 0) {
+        downloadJson(exportFileName("unsent-changes"), changes);
+        return;
+      }
+      const archive = zipUnsent(changes, files);
+      downloadBlob(exportFileName("unsent-changes", new Date(), "zip"), archive);
     },
     async recovery(campaignId: string) {
       downloadJson(exportFileName("kept-for-recovery"), await exportRecovery(db, campaignId));

@@ -1,0 +1,80 @@
+// Attachment links are append-only: one mutation adds a link, one removes it. They never conflict;
+// a second remove is harmless. The bytes travel separately (PUT …/attachments/:sha256).
+import type { z } from "zod";
+import type { AttachmentSubjectKind } from "../../../shared/schemas/attachments";
+import type { mutationSchemas } from "../../../shared/sync/protocol";
+import { nextChangeSeq } from "../../db/change-seq";
+import {
+  findAttachmentLinkAnywhere,
+  findAttachmentLinkForUpdate,
+  insertAttachmentLink,
+  updateAttachmentLink,
+} from "../../db/repositories/attachment-links";
+import { recordAudit } from "../../db/repositories/audit";
+import { findSiteAnywhere } from "../../db/repositories/sites";
+import { presentAttachmentLink } from "../../presenters/attachment-link";
+import { Rejection, type ApplyContext, type ApplyOutcome } from "./context";
+
+type Args<N extends keyof typeof mutationSchemas> = z.output<(typeof mutationSchemas)[N]>;
+
+/** The record a file is attached to must be in the same campaign (a deleted one still counts). */
+const subjectFinders: Record<
+  AttachmentSubjectKind,
+  (ctx: ApplyContext, id: string) => Promise<boolean>
+> = {
+  site: async (ctx, id) => (await findSiteAnywhere(ctx.tx, id))?.campaignId === ctx.campaignId,
+};
+
+const audit = (ctx: ApplyContext, action: string, id: string, before: unknown, after: unknown) =>
+  recordAudit(ctx.tx, {
+    campaignId: ctx.campaignId,
+    userId: ctx.userId,
+    clientId: ctx.clientId,
+    action,
+    entity: "attachment",
+    entityId: id,
+    before,
+    after,
+  });
+
+export async function applyAttachmentAdd(
+  ctx: ApplyContext,
+  args: Args<"attachment.add">,
+): Promise<ApplyOutcome> {
+  if (await findAttachmentLinkAnywhere(ctx.tx, args.id))
+    throw new Rejection("An attachment with this id already exists");
+  if (!(await subjectFinders[args.subject.kind](ctx, args.subject.id)))
+    throw new Rejection(`The ${args.subject.kind} this file belongs to is not in this campaign`);
+  const row = await insertAttachmentLink(ctx.tx, {
+    id: args.id,
+    campaignId: ctx.campaignId,
+    sha256: args.sha256,
+    contentType: args.contentType,
+    sizeBytes: args.sizeBytes,
+    name: args.name,
+    subjectKind: args.subject.kind,
+    subjectId: args.subject.id,
+    caption: args.caption,
+    takenAt: args.takenAt === null ? null : new Date(args.takenAt),
+    createdBy: ctx.userId,
+    changeSeq: await nextChangeSeq(ctx.tx, ctx.campaignId),
+  });
+  await audit(ctx, "create", row.id, null, presentAttachmentLink(row));
+  return { status: "applied" };
+}
+
+export async function applyAttachmentRemove(
+  ctx: ApplyContext,
+  args: Args<"attachment.remove">,
+): Promise<ApplyOutcome> {
+  const current = await findAttachmentLinkForUpdate(ctx.tx, ctx.campaignId, args.id);
+  if (!current) throw new Rejection("Attachment not found");
+  if (current.removedAt) return { status: "applied", message: "Already removed" };
+  const row = await updateAttachmentLink(ctx.tx, current.id, {
+    removedAt: new Date(),
+    removedBy: ctx.userId,
+    changeSeq: await nextChangeSeq(ctx.tx, ctx.campaignId),
+  });
+  await audit(ctx, "delete", row.id, presentAttachmentLink(current), null);
+  return { status: "applied" };
+}

@@ -1,0 +1,30 @@
+// Every local write: the outbox entry, anything written beside it, and the rebuilt working copy in
+// one transaction. The promise resolves only after it committed, so "saved" is never shown early.
+import type { Table } from "dexie";
+import type { MutationName } from "../../shared/sync/protocol";
+import type { EquipotDb } from "./database";
+import { takeMutationId } from "./meta";
+import { rebuildViews, viewTables } from "./views";
+
+export interface LocalMutation {
+  campaignId: string;
+  name: MutationName;
+  /** The record the mutation touches, so its working copy can be rebuilt. */
+  entityId: string;
+  args: unknown;
+  field?: string;
+}
+
+export async function recordMutation(
+  db: EquipotDb,
+  mutation: LocalMutation,
+  alongside?: { tables: Table[]; write: () => Promise<unknown> },
+): Promise<void> {
+  const tables = [db.meta, ...viewTables(db), ...(alongside?.tables ?? [])];
+  await db.transaction("rw", tables, async () => {
+    const mutationId = await takeMutationId(db);
+    await db.outbox.add({ ...mutation, mutationId, createdAt: new Date().toISOString() });
+    await alongside?.write();
+    await rebuildViews(db, [mutation.entityId]);
+  });
+}
