@@ -2,8 +2,9 @@
 // bench/results.json with the machine it ran on. Figures are medians; ratios are against baselines
 // measured in the same run.
 import { writeFileSync } from "node:fs";
-import { cpus, totalmem } from "node:os";
+import { cpus, loadavg, totalmem } from "node:os";
 import { runScienceBench } from "./science";
+import { printSyncRows, runSyncBench } from "./sync";
 
 const machine = {
   cpu: cpus()[0]?.model ?? "unknown",
@@ -11,10 +12,14 @@ const machine = {
   memoryGiB: Math.round(totalmem() / 2 ** 30),
   node: process.version,
   at: new Date().toISOString(),
+  // Other work on the machine slows the figures; the 1-minute load average at the start says how much.
+  loadAverage: loadavg()[0],
 };
 
 const science = await runScienceBench();
-writeFileSync("bench/results.json", JSON.stringify({ machine, science }, null, 2));
+const sync = await runSyncBench();
+printSyncRows(sync);
+writeFileSync("bench/results.json", JSON.stringify({ machine, science, sync }, null, 2));
 console.log(
   `\nMachine: ${machine.cpu}, ${machine.cores} cores, ${machine.memoryGiB} GiB, Node ${machine.node}`,
 );
