@@ -207,8 +207,10 @@ export async function runSyncBench(): Promise<SyncRow[]> {
   try {
     // Pull first: a large closed client database from the push rounds would otherwise be let go
     // by Dexie in the middle of a measured pull.
-    const pull = await pullRows(postgres);
-    const rows = [...(await pushRows(postgres)), ...pull];
+    // EQUIPOT_BENCH_ONLY=pull or =push runs one half, for quicker work on one side.
+    const only = process.env.EQUIPOT_BENCH_ONLY;
+    const pull = only === "push" ? [] : await pullRows(postgres);
+    const rows = [...(only === "pull" ? [] : await pushRows(postgres)), ...pull];
     mkdirSync(BUILD_DIR, { recursive: true });
     writeFileSync(join(BUILD_DIR, "sync.json"), JSON.stringify(rows, null, 2) + "\n");
     return rows;

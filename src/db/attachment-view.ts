@@ -2,6 +2,7 @@
 // adds and removes on top. Links are append-only, so there is nothing to merge.
 import type { AttachmentLinkInput, AttachmentLinkView } from "../../shared/schemas/attachments";
 import type { EquipotDb, LocalAttachment, OutboxEntry } from "./database";
+import { rebuildWorkingCopies } from "./working-copy";
 
 function applyPending(
   record: AttachmentLinkView | undefined,
@@ -29,17 +30,13 @@ function applyPending(
   return record;
 }
 
-/** Call inside a transaction over serverAttachments, outbox and attachments. */
-export async function rebuildAttachmentViews(db: EquipotDb, ids: Iterable<string>): Promise<void> {
-  for (const id of new Set(ids)) {
-    const server = await db.serverAttachments.get(id);
-    const pending = (await db.outbox.where("entityId").equals(id).sortBy("mutationId")).filter(
-      (e) => e.name.startsWith("attachment.") && e.result?.status !== "rejected",
-    );
-    let view = server;
-    for (const entry of pending) view = applyPending(view, entry);
-    if (!view) await db.attachments.delete(id);
-    else
-      await db.attachments.put({ ...view, pending: pending.length > 0 } satisfies LocalAttachment);
-  }
-}
+/** Call inside a transaction over the view tables (views.ts). */
+export const rebuildAttachmentViews = (db: EquipotDb, ids: Iterable<string>) =>
+  rebuildWorkingCopies(db, {
+    ids,
+    server: db.serverAttachments,
+    working: db.attachments,
+    kind: "attachments",
+    apply: applyPending,
+    finish: (view, pending): LocalAttachment => ({ ...view, pending: pending.length > 0 }),
+  });

@@ -5,6 +5,7 @@ import type { MutationName } from "../../shared/sync/protocol";
 import type { EquipotDb } from "./database";
 import { takeMutationId } from "./meta";
 import { rebuildViews, viewTables } from "./views";
+import { viewKindOf } from "./working-copy";
 
 export interface LocalMutation {
   campaignId: string;
@@ -25,6 +26,6 @@ export async function recordMutation(
     const mutationId = await takeMutationId(db);
     await db.outbox.add({ ...mutation, mutationId, createdAt: new Date().toISOString() });
     await alongside?.write();
-    await rebuildViews(db, [mutation.entityId]);
+    await rebuildViews(db, { [viewKindOf(mutation.name)]: [mutation.entityId] });
   });
 }

@@ -2,6 +2,7 @@
 import { sitePatchSchema } from "../../shared/schemas/sites";
 import type { SiteCreateInput, SitePatch, SiteView } from "../../shared/schemas/sites";
 import type { EquipotDb, LocalSite, OutboxEntry } from "./database";
+import { rebuildWorkingCopies } from "./working-copy";
 
 function applyPending(record: SiteView | undefined, entry: OutboxEntry): SiteView | undefined {
   switch (entry.name) {
@@ -44,17 +45,13 @@ function applyPending(record: SiteView | undefined, entry: OutboxEntry): SiteVie
   }
 }
 
-/** Call inside a transaction over serverSites, outbox and sites. */
-export async function rebuildSiteViews(db: EquipotDb, ids: Iterable<string>): Promise<void> {
-  for (const id of new Set(ids)) {
-    const server = await db.serverSites.get(id);
-    // Entries the server refused are not applied; they wait in recovery instead.
-    const pending = (await db.outbox.where("entityId").equals(id).sortBy("mutationId")).filter(
-      (e) => !e.name.startsWith("attachment.") && e.result?.status !== "rejected",
-    );
-    let view: SiteView | undefined = server;
-    for (const entry of pending) view = applyPending(view, entry);
-    if (!view) await db.sites.delete(id);
-    else await db.sites.put({ ...view, pendingChanges: pending.length } satisfies LocalSite);
-  }
-}
+/** Call inside a transaction over the view tables (views.ts). */
+export const rebuildSiteViews = (db: EquipotDb, ids: Iterable<string>) =>
+  rebuildWorkingCopies(db, {
+    ids,
+    server: db.serverSites,
+    working: db.sites,
+    kind: "sites",
+    apply: applyPending,
+    finish: (view, pending): LocalSite => ({ ...view, pendingChanges: pending.length }),
+  });

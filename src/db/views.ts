@@ -1,7 +1,12 @@
-// The working copies, rebuilt after every local write and every pulled page.
+// The working copies: the server's record with this device's pending mutations on top, rebuilt
+// after every local write and every pulled page. A few bulk reads and writes per call, however
+// many records, so a pulled page of 500 costs a handful of IndexedDB requests, not thousands.
 import { rebuildAttachmentViews } from "./attachment-view";
 import type { EquipotDb } from "./database";
 import { rebuildSiteViews } from "./site-view";
+import type { ViewKind } from "./working-copy";
+
+export type Touched = Partial<Record<ViewKind, Iterable<string>>>;
 
 /** The tables a rebuild reads and writes: include them in the transaction of any write. */
 export const viewTables = (db: EquipotDb) => [
@@ -12,9 +17,7 @@ export const viewTables = (db: EquipotDb) => [
   db.attachments,
 ];
 
-/** Ids of any entity: each kind's rebuild leaves records of other kinds alone. */
-export async function rebuildViews(db: EquipotDb, ids: Iterable<string>): Promise<void> {
-  const unique = [...new Set(ids)];
-  await rebuildSiteViews(db, unique);
-  await rebuildAttachmentViews(db, unique);
+export async function rebuildViews(db: EquipotDb, touched: Touched): Promise<void> {
+  await rebuildSiteViews(db, touched.sites ?? []);
+  await rebuildAttachmentViews(db, touched.attachments ?? []);
 }

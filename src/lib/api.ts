@@ -5,6 +5,7 @@ import { errorBody, requestHeader, sessionView, type SessionView } from "../../s
 import { env } from "../config/env";
 import { ApiError, type ApiErrorCode } from "./api-error";
 import { reportReachable } from "./connectivity";
+import { withWebLock } from "./web-lock";
 
 type Method = "GET" | "POST" | "PATCH" | "DELETE";
 
@@ -136,11 +137,17 @@ async function parseBody<S extends z.ZodType>(response: Response, schema: S): Pr
   throw new ApiError(response.status, "bad_response", "The server's answer was not understood.");
 }
 
-/** Exchanges the refresh cookie for a new access token. Concurrent callers share one request. */
+/**
+ * Exchanges the refresh cookie for a new access token. Concurrent callers share one request, and
+ * tabs take turns (Web Locks): the server rotates the cookie strictly and treats a second use of
+ * the old one as theft, so two tabs refreshing at once would end the session everywhere.
+ */
 export function refreshSession(): Promise<SessionView> {
   refreshInFlight ??= (async () => {
     try {
-      const response = await send("/auth/refresh", "POST", undefined, null);
+      const response = await withWebLock("equipot-refresh", () =>
+        send("/auth/refresh", "POST", undefined, null),
+      );
       if (!response.ok) {
         const error = await toApiError(response);
         if (response.status === 401) {

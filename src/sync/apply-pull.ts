@@ -1,49 +1,58 @@
 // Writes one pulled page into IndexedDB in one transaction: the server's records, the cursor, and
-// the outbox entries the server confirms (lastMutationId) leave the outbox, refused ones go to recovery.
+// the outbox entries the server confirms (lastMutationId) leave the outbox, refused ones go to
+// recovery. Bulk reads and writes only: a page costs a handful of IndexedDB requests.
+import type { AttachmentLinkView } from "../../shared/schemas/attachments";
+import type { SiteView } from "../../shared/schemas/sites";
 import type { PullResponse } from "../../shared/sync/protocol";
-import type { EquipotDb, OutboxEntry } from "../db/database";
+import type { EquipotDb, LocalConflict, RecoveryEntry } from "../db/database";
 import { cursorKey, writeMeta } from "../db/meta";
 import { rebuildViews, viewTables } from "../db/views";
+import { viewKindOf } from "../db/working-copy";
 
 export async function applyPulledPage(
   db: EquipotDb,
   campaignId: string,
   page: PullResponse,
 ): Promise<void> {
+  const sites: SiteView[] = [];
+  const links: AttachmentLinkView[] = [];
+  const conflicts: LocalConflict[] = [];
+  for (const change of page.changes) {
+    if (change.entity === "site") sites.push(change.data);
+    else if (change.entity === "attachment") links.push(change.data);
+    else conflicts.push({ ...change.data, campaignId });
+  }
+  const touched = {
+    sites: new Set(sites.map((s) => s.id)),
+    attachments: new Set(links.map((l) => l.id)),
+  };
   const tables = [db.meta, db.conflicts, db.recovery, ...viewTables(db)];
   await db.transaction("rw", tables, async () => {
-    const touched = new Set<string>();
-    for (const change of page.changes) {
-      if (change.entity === "site") await db.serverSites.put(change.data);
-      else if (change.entity === "attachment") await db.serverAttachments.put(change.data);
-      else await db.conflicts.put({ ...change.data, campaignId });
-      if (change.entity !== "conflict") touched.add(change.id);
-    }
+    await db.serverSites.bulkPut(sites);
+    await db.serverAttachments.bulkPut(links);
+    await db.conflicts.bulkPut(conflicts);
     // Confirm only on the last page: then every change of a confirmed mutation is already here,
     // so its record never drops out of the working copy between pages.
     if (page.lastMutationId !== null && !page.hasMore) {
       // The server's own record of refusals covers a push whose answer never arrived.
       const refusedByServer = new Map(page.rejections.map((r) => [r.mutationId, r.reason]));
-      const confirmed: OutboxEntry[] = await db.outbox
+      const confirmed = await db.outbox
         .where("mutationId")
         .belowOrEqual(page.lastMutationId)
         .toArray();
+      const refused: RecoveryEntry[] = [];
+      const at = new Date().toISOString();
       for (const entry of confirmed) {
-        touched.add(entry.entityId);
+        touched[viewKindOf(entry.name)].add(entry.entityId);
         const reason =
           entry.result?.status === "rejected"
             ? (entry.result.message ?? "Refused by the server")
             : refusedByServer.get(entry.mutationId);
         if (reason === undefined) continue;
-        await db.recovery.add({
-          campaignId: entry.campaignId,
-          mutationId: entry.mutationId,
-          name: entry.name,
-          args: entry.args,
-          reason,
-          at: new Date().toISOString(),
-        });
+        const { campaignId: campaign, mutationId, name, args } = entry;
+        refused.push({ campaignId: campaign, mutationId, name, args, reason, at });
       }
+      await db.recovery.bulkAdd(refused);
       await db.outbox.bulkDelete(confirmed.map((e) => e.mutationId));
     }
     await writeMeta(db, cursorKey(campaignId), page.cursor);

@@ -1,6 +1,7 @@
 // When the sync engine runs, in the browser: at start, when the network returns, on a periodic
 // probe of the server while the tab is visible, shortly after local writes, and on demand. After a
 // failure it waits (doubling, with jitter) before trying on its own again. Plain TypeScript.
+import { withWebLock } from "../lib/web-lock";
 
 export interface SchedulerEnvironment {
   /** Adds a listener for the browser's `online` event; returns a remover. */
@@ -55,16 +56,8 @@ export function browserEnvironment(): SchedulerEnvironment {
 }
 
 /** The engine's `exclusive` option: one run at a time across every tab of this browser. */
-export async function webLockExclusive<T>(work: () => Promise<T>): Promise<T> {
-  const locks = typeof navigator === "undefined" ? undefined : navigator.locks;
-  if (locks === undefined) return work();
-  const done: { result?: { value: T } } = {};
-  await locks.request("equipot-sync", async () => {
-    done.result = { value: await work() };
-  });
-  if (done.result === undefined) throw new Error("The sync lock was released without running");
-  return done.result.value;
-}
+export const webLockExclusive = <T>(work: () => Promise<T>): Promise<T> =>
+  withWebLock("equipot-sync", work);
 
 export function createSyncScheduler(options: SyncSchedulerOptions): SyncScheduler {
   const {

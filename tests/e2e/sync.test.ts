@@ -147,10 +147,15 @@ test("two devices change the same field offline: a conflict is listed and resolv
   await b.getByRole("link", { name: "Sites", exact: true }).click();
   const row = b.getByRole("row", { name: /Saltmere tide station/ });
   expect(await row.innerText()).toContain("Tide gauge kept at the south pier.");
-  const onServer = await serverSites(server.baseUrl, "admin");
-  expect(onServer.find((s) => s.name === "Saltmere tide station")?.notes).toBe(
-    "Tide gauge kept at the south pier.",
-  );
+  // The status can still read "All changes sent" for a moment after the choice: wait for the server.
+  await expect
+    .poll(
+      async () =>
+        (await serverSites(server.baseUrl, "admin")).find((s) => s.name === "Saltmere tide station")
+          ?.notes,
+      { timeout: 20_000 },
+    )
+    .toBe("Tide gauge kept at the south pier.");
   await contextA.close();
   await contextB.close();
   current = undefined;
@@ -198,7 +203,7 @@ test("signing out with unsent changes warns, offers them as a file, and keeps th
   await waitForSyncStatus(page, "1 change not yet sent");
 
   await page.getByRole("link", { name: "This device" }).click();
-  await page.getByRole("heading", { name: "This device" }).waitFor();
+  await page.getByRole("heading", { name: "This device", exact: true }).waitFor();
   await page.getByText("1 change waits on this device for the server.").waitFor();
   await screenshot(page, "sync-device-1024x768");
 

@@ -56,10 +56,10 @@ export async function pull(db: Db, userId: string, query: PullQuery): Promise<Pu
     async (tx) => {
       const { campaign, cursor, limit } = query;
       // Each source reads one row past the page, so "more" is known without a count.
-      const read = await Promise.all(
-        sources.map((source) => source(tx, campaign, cursor, limit + 1)),
-      );
-      const all = read.flat().sort((a, b) => a.seq - b.seq);
+      // One after the other: a transaction's connection runs one query at a time anyway.
+      const read: ChangeRecord[] = [];
+      for (const source of sources) read.push(...(await source(tx, campaign, cursor, limit + 1)));
+      const all = read.sort((a, b) => a.seq - b.seq);
       const changes = all.slice(0, limit);
       const hasMore = all.length > limit;
       let lastMutationId: number | null = null;
