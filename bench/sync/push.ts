@@ -137,10 +137,15 @@ const columns =
  * its change positions from the campaign's counter row in one UPDATE (the row lock the server's
  * writers serialise on), not one UPDATE per row.
  */
+/**
+ * The same rows by plain multi-row INSERTs, one transaction per batch: the sites with their change
+ * positions and, with `audit`, the audit row the server writes beside each (who, what, the record).
+ */
 export async function baselineRound(
   postgres: BenchPostgres,
   queued: Queued,
   batch: number,
+  audit: boolean,
 ): Promise<number> {
   const database = await postgres.fresh();
   const client = new pg.Client({ connectionString: database.url });
@@ -170,6 +175,18 @@ export async function baselineRound(
         return `(${Array.from({ length: 10 }, (_, k) => `$${p + k + 1}`).join(", ")})`;
       });
       await client.query(`insert into sites (${columns}) values ${tuples.join(", ")}`, values);
+      if (audit) {
+        const auditValues: unknown[] = [];
+        const auditTuples = chunk.map((r, i) => {
+          auditValues.push(queued.campaignId, userId, r.id, JSON.stringify(r));
+          const p = i * 4;
+          return `($${p + 1}, $${p + 2}, 'create', 'site', $${p + 3}, $${p + 4}::jsonb)`;
+        });
+        await client.query(
+          `insert into audit_events (campaign_id, user_id, action, entity, entity_id, after) values ${auditTuples.join(", ")}`,
+          auditValues,
+        );
+      }
       await client.query("commit");
     }
     const ms = performance.now() - t0;

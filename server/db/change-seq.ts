@@ -10,12 +10,23 @@ import { eq, sql } from "drizzle-orm";
 import type { Queryable } from "./client";
 import { campaigns } from "./schema";
 
-export async function nextChangeSeq(q: Queryable, campaignId: string): Promise<number> {
+export const nextChangeSeq = (q: Queryable, campaignId: string): Promise<number> =>
+  takeChangeSeqs(q, campaignId, 1);
+
+/**
+ * `count` consecutive positions in one UPDATE, under the same row lock: returns the first, the
+ * others follow it. For a run of writes in one transaction, the same positions as one at a time.
+ */
+export async function takeChangeSeqs(
+  q: Queryable,
+  campaignId: string,
+  count: number,
+): Promise<number> {
   const [row] = await q
     .update(campaigns)
-    .set({ changeSeq: sql`${campaigns.changeSeq} + 1` })
+    .set({ changeSeq: sql`${campaigns.changeSeq} + ${count}` })
     .where(eq(campaigns.id, campaignId))
     .returning({ seq: campaigns.changeSeq });
   if (!row) throw new Error(`campaign ${campaignId} not found for a change position`);
-  return row.seq;
+  return row.seq - count + 1;
 }

@@ -100,10 +100,9 @@ export function createSyncEngine(options: SyncEngineOptions) {
         createdAt: e.createdAt,
       }));
       const response = await transport.push({ protocolVersion, clientId, campaignId, mutations });
-      await db.transaction("rw", db.outbox, async () => {
-        for (const result of response.results)
-          await db.outbox.update(result.mutationId, { result });
-      });
+      await db.outbox.bulkUpdate(
+        response.results.map((result) => ({ key: result.mutationId, changes: { result } })),
+      );
       done += group.length;
       setStatus({ progress: { phase: "changes", done, total: unsent.length } });
     }

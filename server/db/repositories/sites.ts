@@ -1,4 +1,4 @@
-import { and, asc, eq, isNull } from "drizzle-orm";
+import { and, asc, eq, isNull, sql } from "drizzle-orm";
 import type { Queryable } from "../client";
 import { sites } from "../schema";
 
@@ -32,6 +32,16 @@ export const findSiteAnywhere = async (q: Queryable, id: string) =>
       .limit(1)
   )[0];
 
+/** Which of these ids already belong to a site, in any campaign (as PostgreSQL spells them). */
+export async function takenSiteIds(q: Queryable, ids: string[]): Promise<Set<string>> {
+  if (ids.length === 0) return new Set();
+  const rows = await q
+    .select({ id: sites.id })
+    .from(sites)
+    .where(sql`${sites.id} = any(${sql.param(ids)}::uuid[])`);
+  return new Set(rows.map((r) => r.id));
+}
+
 export async function insertSite(q: Queryable, row: SiteInsert): Promise<SiteRow> {
   const [inserted] = await q.insert(sites).values(row).returning();
   if (!inserted) throw new Error("insert into sites returned no row");
@@ -46,4 +56,63 @@ export async function updateSite(
   const [updated] = await q.update(sites).set(patch).where(eq(sites.id, id)).returning();
   if (!updated) throw new Error("update of sites returned no row");
   return updated;
+}
+
+/** What a create writes; the other columns take their defaults. */
+export type NewSite = Required<
+  Pick<
+    SiteInsert,
+    | "id"
+    | "campaignId"
+    | "name"
+    | "kind"
+    | "latitudeDeg"
+    | "longitudeDeg"
+    | "approxHeightM"
+    | "notes"
+    | "updatedBy"
+    | "changeSeq"
+  >
+>;
+
+// A text parameter reaches PostgreSQL as UTF-8, a lone surrogate turned into U+FFFD; inside JSON it
+// would stay an escape that PostgreSQL refuses. Encode strings the way a parameter would.
+const wellFormed = (_key: string, value: unknown) =>
+  typeof value === "string" ? Buffer.from(value, "utf8").toString("utf8") : value;
+
+/**
+ * Several sites in one INSERT, read back in change order. The rows travel as one JSON parameter
+ * that PostgreSQL unpacks: building a multi-row VALUES through drizzle costs more than the database
+ * spends on the insert.
+ */
+export async function insertSites(q: Queryable, rows: NewSite[]): Promise<SiteRow[]> {
+  if (rows.length === 0) return [];
+  const json = JSON.stringify(
+    rows.map((r) => ({
+      id: r.id,
+      campaign_id: r.campaignId,
+      name: r.name,
+      kind: r.kind,
+      latitude_deg: r.latitudeDeg,
+      longitude_deg: r.longitudeDeg,
+      approx_height_m: r.approxHeightM,
+      notes: r.notes,
+      updated_by: r.updatedBy,
+      change_seq: r.changeSeq,
+    })),
+    wellFormed,
+  );
+  await q.execute(sql`
+    insert into sites (id, campaign_id, name, kind, latitude_deg, longitude_deg, approx_height_m,
+      notes, updated_by, change_seq)
+    select id, campaign_id, name, kind, latitude_deg, longitude_deg, approx_height_m,
+      notes, updated_by, change_seq
+    from json_populate_recordset(null::sites, ${json}::json)`);
+  const inserted = await q
+    .select()
+    .from(sites)
+    .where(sql`${sites.id} = any(${sql.param(rows.map((r) => r.id))}::uuid[])`)
+    .orderBy(asc(sites.changeSeq));
+  if (inserted.length !== rows.length) throw new Error("insert into sites lost rows");
+  return inserted;
 }

@@ -35,6 +35,15 @@ export async function recordRejection(q: Queryable, row: typeof syncRejections.$
   await q.insert(syncRejections).values(row);
 }
 
+/** Several refusals in one INSERT; their ids follow the order given. */
+export async function recordRejections(
+  q: Queryable,
+  rows: (typeof syncRejections.$inferInsert)[],
+): Promise<void> {
+  if (rows.length === 0) return;
+  await q.insert(syncRejections).values(rows);
+}
+
 /** The client's refused mutations in an id range, oldest first (one client's own record). */
 export const rejectionsBetween = (q: Queryable, clientId: string, from: number, to: number) =>
   q

@@ -1,16 +1,21 @@
-// Dispatches one pushed mutation: validate its arguments, check the permission with the user's
+// Dispatches pushed mutations: validate the arguments, check the permission with the user's
 // current role, then apply. Anything refused becomes a Rejection, recorded with the whole mutation.
+// A run of consecutive creates is applied together (see applySiteCreates), the rest one by one.
 import type { z } from "zod";
 import { can, type Role } from "../../../shared/permissions";
 import {
   mutationActions,
   mutationSchemas,
   type MutationEnvelope,
+  type MutationName,
 } from "../../../shared/sync/protocol";
 import { applyAttachmentAdd, applyAttachmentRemove } from "./attachment-mutations";
 import { applyConflictResolve } from "./conflict-mutations";
-import { Rejection, type ApplyContext, type ApplyOutcome } from "./context";
-import { applySiteCreate, applySiteDelete, applySiteUpdate } from "./site-mutations";
+import { Rejection, type ApplyContext, type ApplyOutcome, type Settled } from "./context";
+import { applySiteCreates, applySiteDelete, applySiteUpdate } from "./site-mutations";
+
+type PushContext = Omit<ApplyContext, "role"> & { role: Role | undefined };
+type SiteCreate = z.output<(typeof mutationSchemas)["site.create"]> | Rejection;
 
 function parseArgs<S extends z.ZodType>(name: string, schema: S, args: unknown): z.output<S> {
   const parsed = schema.safeParse(args);
@@ -20,27 +25,52 @@ function parseArgs<S extends z.ZodType>(name: string, schema: S, args: unknown):
   throw new Rejection(`Invalid ${name}: ${where}${issue?.message ?? "invalid arguments"}`);
 }
 
-export async function applyMutation(
-  ctx: Omit<ApplyContext, "role"> & { role: Role | undefined },
-  mutation: MutationEnvelope,
-): Promise<ApplyOutcome> {
-  const { role } = ctx;
+function allowedRole(role: Role | undefined, name: MutationName): Role {
   if (!role)
     throw new Rejection(
       "You are not a member of this campaign (any more); the change is kept for recovery",
     );
-  if (!can(role, mutationActions[mutation.name])) {
+  if (!can(role, mutationActions[name])) {
     throw new Rejection(
       "Your role in this campaign does not allow this change; it is kept for recovery",
     );
   }
-  const full: ApplyContext = { ...ctx, role };
+  return role;
+}
+
+/** A create's checks, on their own: a refusal keeps its place in the run. */
+function checkSiteCreate(role: Role | undefined, mutation: MutationEnvelope): SiteCreate {
+  try {
+    allowedRole(role, mutation.name);
+    return parseArgs("site.create", mutationSchemas["site.create"], mutation.args);
+  } catch (error) {
+    if (error instanceof Rejection) return error;
+    throw error;
+  }
+}
+
+/** A run of consecutive site.create mutations: checked one by one, applied together, in order. */
+export const applySiteCreateRun = (
+  ctx: Omit<PushContext, "mutationId">,
+  mutations: MutationEnvelope[],
+): Promise<Settled[]> =>
+  applySiteCreates(
+    ctx,
+    mutations.map((m) => checkSiteCreate(ctx.role, m)),
+  );
+
+export async function applyMutation(
+  ctx: PushContext,
+  mutation: MutationEnvelope,
+): Promise<ApplyOutcome> {
+  const full: ApplyContext = { ...ctx, role: allowedRole(ctx.role, mutation.name) };
   switch (mutation.name) {
-    case "site.create":
-      return applySiteCreate(
-        full,
-        parseArgs("site.create", mutationSchemas["site.create"], mutation.args),
-      );
+    case "site.create": {
+      const [settled] = await applySiteCreateRun(ctx, [mutation]);
+      if (settled instanceof Rejection) throw settled;
+      if (!settled) throw new Error("a run of one create gave no outcome");
+      return settled;
+    }
     case "site.update":
       return applySiteUpdate(
         full,

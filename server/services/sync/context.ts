@@ -17,3 +17,16 @@ export class Rejection extends Error {}
 
 export const sameValue = (a: unknown, b: unknown) =>
   JSON.stringify(a ?? null) === JSON.stringify(b ?? null);
+
+/** What became of one mutation: its outcome, or the reason it was refused. */
+export type Settled = ApplyOutcome | Rejection;
+
+/** Runs `work`, turning a Rejection into a value; any other error still aborts the push. */
+export async function settle(work: () => Promise<ApplyOutcome>): Promise<Settled> {
+  try {
+    return await work();
+  } catch (error) {
+    if (error instanceof Rejection) return error;
+    throw error;
+  }
+}

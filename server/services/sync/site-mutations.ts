@@ -4,53 +4,103 @@
 import type { z } from "zod";
 import type { SitePatch } from "../../../shared/schemas/sites";
 import type { mutationSchemas } from "../../../shared/sync/protocol";
-import { nextChangeSeq } from "../../db/change-seq";
-import { recordAudit } from "../../db/repositories/audit";
+import { nextChangeSeq, takeChangeSeqs } from "../../db/change-seq";
+import { recordAudit, recordAudits, type AuditEntry } from "../../db/repositories/audit";
 import {
-  findSiteAnywhere,
   findSiteForUpdate,
-  insertSite,
+  insertSites,
+  takenSiteIds,
   updateSite,
 } from "../../db/repositories/sites";
 import { insertConflict } from "../../db/repositories/sync";
 import { presentSite } from "../../presenters/site";
-import { Rejection, sameValue, type ApplyContext, type ApplyOutcome } from "./context";
+import {
+  Rejection,
+  sameValue,
+  type ApplyContext,
+  type ApplyOutcome,
+  type Settled,
+} from "./context";
 
 type Args<N extends keyof typeof mutationSchemas> = z.output<(typeof mutationSchemas)[N]>;
 type SiteField = keyof SitePatch;
 
-const audit = (
-  ctx: ApplyContext,
+/** What an audit row and a run of creates need: no single mutation id, no role past the checks. */
+type WriteContext = Omit<ApplyContext, "mutationId" | "role">;
+
+const auditEntry = (
+  ctx: WriteContext,
   action: string,
   entityId: string,
   before: unknown,
   after: unknown,
-) =>
-  recordAudit(ctx.tx, {
-    campaignId: ctx.campaignId,
-    userId: ctx.userId,
-    clientId: ctx.clientId,
-    action,
-    entity: "site",
-    entityId,
-    before,
-    after,
-  });
+): AuditEntry => ({
+  campaignId: ctx.campaignId,
+  userId: ctx.userId,
+  clientId: ctx.clientId,
+  action,
+  entity: "site",
+  entityId,
+  before,
+  after,
+});
 
-export async function applySiteCreate(
-  ctx: ApplyContext,
-  args: Args<"site.create">,
-): Promise<ApplyOutcome> {
-  const existing = await findSiteAnywhere(ctx.tx, args.id);
-  if (existing) throw new Rejection("A site with this id already exists");
-  const row = await insertSite(ctx.tx, {
-    ...args,
-    campaignId: ctx.campaignId,
-    updatedBy: ctx.userId,
-    changeSeq: await nextChangeSeq(ctx.tx, ctx.campaignId),
-  });
-  await audit(ctx, "create", row.id, null, presentSite(row));
-  return { status: "applied" };
+const audit = (
+  ctx: WriteContext,
+  action: string,
+  entityId: string,
+  before: unknown,
+  after: unknown,
+) => recordAudit(ctx.tx, auditEntry(ctx, action, entityId, before, after));
+
+/**
+ * Applies a run of consecutive creates with one query per step rather than four per create, with
+ * the outcome of applying them one by one: a create already refused by its checks stays refused;
+ * an id already taken, on the server or by an earlier create of the run, is refused; the others
+ * take consecutive change positions in their order.
+ */
+export async function applySiteCreates(
+  ctx: WriteContext,
+  creates: (Args<"site.create"> | Rejection)[],
+): Promise<Settled[]> {
+  const checked = creates.filter((c): c is Args<"site.create"> => !(c instanceof Rejection));
+  const taken = await takenSiteIds(
+    ctx.tx,
+    checked.map((args) => args.id),
+  );
+  const settled: Settled[] = [];
+  const accepted: Args<"site.create">[] = [];
+  for (const args of creates) {
+    if (args instanceof Rejection) {
+      settled.push(args);
+      continue;
+    }
+    // PostgreSQL compares uuids regardless of case, and answers them in lower case.
+    const key = args.id.toLowerCase();
+    if (taken.has(key)) {
+      settled.push(new Rejection("A site with this id already exists"));
+      continue;
+    }
+    taken.add(key);
+    accepted.push(args);
+    settled.push({ status: "applied" });
+  }
+  if (accepted.length === 0) return settled;
+  const first = await takeChangeSeqs(ctx.tx, ctx.campaignId, accepted.length);
+  const rows = await insertSites(
+    ctx.tx,
+    accepted.map((args, i) => ({
+      ...args,
+      campaignId: ctx.campaignId,
+      updatedBy: ctx.userId,
+      changeSeq: first + i,
+    })),
+  );
+  await recordAudits(
+    ctx.tx,
+    rows.map((row) => auditEntry(ctx, "create", row.id, null, presentSite(row))),
+  );
+  return settled;
 }
 
 export async function applySiteUpdate(

@@ -24,6 +24,7 @@ describe("checklist items", () => {
       ok: false,
       message: "Room temperature: expected a number",
     });
+    if (number.kind !== "number") throw new Error("parsed as another kind");
     expect(describeRange(number)).toBe("between 18 and 26 °C");
   });
 
