@@ -3,7 +3,7 @@
 // measured in the same run.
 import { writeFileSync } from "node:fs";
 import { cpus, loadavg, totalmem } from "node:os";
-import { runScienceBench } from "./science";
+import { printScienceRows, runScienceBench } from "./science";
 import { printSyncRows, runSyncBench } from "./sync";
 
 const machine = {
@@ -17,6 +17,7 @@ const machine = {
 };
 
 const science = await runScienceBench();
+printScienceRows(science);
 const sync = await runSyncBench();
 printSyncRows(sync);
 writeFileSync("bench/results.json", JSON.stringify({ machine, science, sync }, null, 2));

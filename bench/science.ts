@@ -188,7 +188,7 @@ export async function runScienceBench(): Promise<Row[]> {
   return rows;
 }
 
-function printRows(rows: readonly Row[]): void {
+export function printScienceRows(rows: readonly Row[]): void {
   const fmt = (v: number | null, digits = 1) => (v === null ? "—" : v.toFixed(digits));
   const table = rows.map((r) => ({
     benchmark: r.name,
@@ -204,5 +204,5 @@ function printRows(rows: readonly Row[]): void {
 }
 
 if (process.argv[1] !== undefined && import.meta.url === pathToFileURL(process.argv[1]).href) {
-  printRows(await runScienceBench());
+  printScienceRows(await runScienceBench());
 }
