@@ -1,5 +1,6 @@
 // Attachments are content-addressed: the URL names the SHA-256 of the bytes, recomputed by the server.
 import { z } from "zod";
+import { hasNul, nulMessage } from "./text";
 
 export const attachmentLimits = {
   /** Largest accepted file; the client checks this before sending. */
@@ -60,12 +61,18 @@ export const attachmentLinkInput = z.strictObject({
     .int()
     .min(1, "sizeBytes must be at least 1")
     .max(attachmentLimits.maxBytes, `sizeBytes must be at most ${attachmentLimits.maxBytes}`),
-  name: z.string().trim().max(attachmentLimits.nameMax).default(""),
+  name: z
+    .string()
+    .trim()
+    .max(attachmentLimits.nameMax)
+    .refine((v) => !hasNul(v), nulMessage("name"))
+    .default(""),
   subject: z.strictObject({ kind: attachmentSubjectKind, id: z.uuid("subject.id must be a UUID") }),
   caption: z
     .string()
     .trim()
     .max(captionMax, `Caption must be at most ${captionMax} characters`)
+    .refine((v) => !hasNul(v), nulMessage("Caption"))
     .default(""),
   takenAt: z.iso.datetime({ offset: true }).nullable().default(null),
 });

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { limits } from "./limits";
+import { hasNul, nulMessage } from "./text";
 
 export const siteKinds = [
   "reference-lab",
@@ -28,7 +29,8 @@ const siteFields = {
     .string()
     .trim()
     .min(1, "Name is required")
-    .max(limits.nameMax, `Name must be at most ${limits.nameMax} characters`),
+    .max(limits.nameMax, `Name must be at most ${limits.nameMax} characters`)
+    .refine((v) => !hasNul(v), nulMessage("Name")),
   kind: siteKindSchema,
   latitudeDeg: finite("Latitude")
     .min(limits.latitudeDeg.min, "Latitude must be between −90° and 90°")
@@ -48,6 +50,7 @@ const siteFields = {
   notes: z
     .string()
     .max(limits.notesMax, `Notes must be at most ${limits.notesMax} characters`)
+    .refine((v) => !hasNul(v), nulMessage("Notes"))
     .default(""),
 };
 
@@ -65,7 +68,11 @@ export const siteUpdateInput = z.strictObject({
   latitudeDeg: siteFields.latitudeDeg.optional(),
   longitudeDeg: siteFields.longitudeDeg.optional(),
   approxHeightM: siteFields.approxHeightM.optional(),
-  notes: z.string().max(limits.notesMax).optional(),
+  notes: z
+    .string()
+    .max(limits.notesMax, `Notes must be at most ${limits.notesMax} characters`)
+    .refine((v) => !hasNul(v), nulMessage("Notes"))
+    .optional(),
 });
 export type SiteUpdateInput = z.infer<typeof siteUpdateInput>;
 

@@ -104,6 +104,39 @@ describe("push", () => {
     expect(kept[0]?.args).toMatchObject({ latitudeDeg: 123 });
   });
 
+  it("refuses a NUL in a site's text by name and keeps the change, so the queue never blocks", async () => {
+    const { token } = await signInAs(ctx.app, "field");
+    const client = syncClient();
+    const nul = client.mutation("site.create", newSite({ name: "Hut\u0000B" }));
+    const broken = client.mutation("site.create", {
+      ...newSite({ notes: "\u0000" }),
+      latitudeDeg: "north \ud800",
+    });
+    const good = client.mutation("site.create", newSite({ name: "After the NUL" }));
+    const res = await pushAs(ctx.app, token, {
+      clientId: client.clientId,
+      campaignId,
+      mutations: [nul, broken, good],
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.results.map((r) => [r.status, r.message])).toEqual([
+      [
+        "rejected",
+        "Invalid site.create: name: Name contains a NUL character, which cannot be stored",
+      ],
+      ["rejected", expect.stringMatching(/^Invalid site\.create: /)],
+      ["applied", undefined],
+    ]);
+    const kept = await ctx.database.db
+      .select()
+      .from(syncRejections)
+      .where(eq(syncRejections.clientId, client.clientId));
+    expect(kept.map((k) => k.mutationId)).toEqual([1, 2]);
+    // Kept whole for recovery, in a form the database accepts.
+    expect(kept[0]?.args).toMatchObject({ name: "Hut\uFFFDB" });
+    expect(kept[1]?.args).toMatchObject({ notes: "\uFFFD", latitudeDeg: "north \uFFFD" });
+  });
+
   it("answers an old protocol version with update_required", async () => {
     const { token } = await signInAs(ctx.app, "field");
     const client = syncClient();

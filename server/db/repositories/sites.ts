@@ -1,6 +1,7 @@
 import { and, asc, eq, isNull, sql } from "drizzle-orm";
 import type { Queryable } from "../client";
 import { sites } from "../schema";
+import { wellFormed } from "../storable";
 
 export type SiteRow = typeof sites.$inferSelect;
 export type SiteInsert = typeof sites.$inferInsert;
@@ -74,11 +75,6 @@ export type NewSite = Required<
     | "changeSeq"
   >
 >;
-
-// A text parameter reaches PostgreSQL as UTF-8, a lone surrogate turned into U+FFFD; inside JSON it
-// would stay an escape that PostgreSQL refuses. Encode strings the way a parameter would.
-const wellFormed = (_key: string, value: unknown) =>
-  typeof value === "string" ? Buffer.from(value, "utf8").toString("utf8") : value;
 
 /**
  * Several sites in one INSERT, read back in change order. The rows travel as one JSON parameter

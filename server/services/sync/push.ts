@@ -10,6 +10,7 @@ import {
   type PushResponse,
 } from "../../../shared/sync/protocol";
 import type { Db } from "../../db/client";
+import { storableJson } from "../../db/storable";
 import { advanceSyncClient, lockSyncClient, recordRejections } from "../../db/repositories/sync";
 import { findMembership } from "../../db/repositories/users";
 import { badRequest, conflict, forbidden, HttpError } from "../../http-errors";
@@ -75,7 +76,8 @@ const rejectionRows = (ctx: RunContext, run: MutationEnvelope[], settled: Settle
         campaignId,
         mutationId,
         name,
-        args: args ?? null,
+        // Kept whole, but in a form jsonb accepts (NUL and broken characters replaced).
+        args: storableJson(args),
         reason: outcome.message,
       },
     ];
