@@ -10,6 +10,7 @@ export const actions = [
   "member.manage",
   "invite.create",
   "attachment.write",
+  "checklist.record",
 ] as const;
 export type Action = (typeof actions)[number];
 
@@ -21,6 +22,8 @@ const table: Record<Action, readonly Role[]> = {
   "member.manage": ["admin"],
   "invite.create": ["admin"],
   "attachment.write": ["field", "logistics", "geodesist", "admin"],
+  // The crew works through checklists; an administrator may stand in (DESIGN.md §6).
+  "checklist.record": ["field", "admin"],
 };
 
 export function can(role: Role | undefined | null, action: Action): boolean {

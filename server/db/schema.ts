@@ -3,6 +3,7 @@ import { sql } from "drizzle-orm";
 import {
   bigint,
   bigserial,
+  boolean,
   check,
   doublePrecision,
   index,
@@ -18,6 +19,7 @@ import {
 } from "drizzle-orm/pg-core";
 import { roles } from "../../shared/permissions";
 import { attachmentSubjectKinds } from "../../shared/schemas/attachments";
+import { checklistPurposes } from "../../shared/schemas/checklists";
 import { siteKinds } from "../../shared/schemas/sites";
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
@@ -287,6 +289,84 @@ export const attachmentLinks = pgTable(
     index("attachment_links_change_idx").on(t.campaignId, t.changeSeq),
     index("attachment_links_subject_idx").on(t.campaignId, t.subjectKind, t.subjectId),
     check("attachment_links_sha256_hex", sql`${t.sha256} ~ '^[0-9a-f]{64}$'`),
+  ],
+);
+
+export const checklistPurposeEnum = pgEnum("checklist_purpose", checklistPurposes);
+
+/** Kept by administrators; runs copy the items when they start. */
+export const checklistTemplates = pgTable(
+  "checklist_templates",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: uuid("campaign_id")
+      .notNull()
+      .references(() => campaigns.id, { onDelete: "cascade" }),
+    title: text("title").notNull(),
+    purpose: checklistPurposeEnum("purpose").notNull(),
+    items: jsonb("items").notNull(),
+    version: integer("version").notNull().default(1),
+    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+    createdAt: createdAt(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
+    deletedAt: timestamp("deleted_at", { withTimezone: true }),
+  },
+  (t) => [index("checklist_templates_change_idx").on(t.campaignId, t.changeSeq)],
+);
+
+/** A checklist worked through at a site, with the template's items as they were at the start. */
+export const checklistRuns = pgTable(
+  "checklist_runs",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: uuid("campaign_id")
+      .notNull()
+      .references(() => campaigns.id, { onDelete: "cascade" }),
+    templateId: uuid("template_id")
+      .notNull()
+      .references(() => checklistTemplates.id),
+    siteId: uuid("site_id")
+      .notNull()
+      .references(() => sites.id),
+    title: text("title").notNull(),
+    purpose: checklistPurposeEnum("purpose").notNull(),
+    items: jsonb("items").notNull(),
+    startedAt: timestamp("started_at", { withTimezone: true }).notNull(),
+    startedBy: uuid("started_by").references(() => users.id, { onDelete: "set null" }),
+    signedOffAt: timestamp("signed_off_at", { withTimezone: true }),
+    signedOffBy: uuid("signed_off_by").references(() => users.id, { onDelete: "set null" }),
+    signOffNote: text("sign_off_note").notNull().default(""),
+    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+  },
+  (t) => [
+    index("checklist_runs_change_idx").on(t.campaignId, t.changeSeq),
+    index("checklist_runs_site_idx").on(t.campaignId, t.siteId),
+  ],
+);
+
+/** Append-only: every result as entered, with its author and time; the latest per item counts. */
+export const checklistResults = pgTable(
+  "checklist_results",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: uuid("campaign_id")
+      .notNull()
+      .references(() => campaigns.id, { onDelete: "cascade" }),
+    runId: uuid("run_id")
+      .notNull()
+      .references(() => checklistRuns.id),
+    itemId: text("item_id").notNull(),
+    value: jsonb("value").notNull(),
+    outOfRange: boolean("out_of_range").notNull(),
+    note: text("note").notNull().default(""),
+    recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull(),
+    recordedBy: uuid("recorded_by").references(() => users.id, { onDelete: "set null" }),
+    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+  },
+  (t) => [
+    index("checklist_results_change_idx").on(t.campaignId, t.changeSeq),
+    index("checklist_results_run_idx").on(t.runId),
   ],
 );
 

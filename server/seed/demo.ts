@@ -5,7 +5,17 @@ import type { Role } from "../../shared/permissions";
 import type { SiteKind } from "../../shared/schemas/sites";
 import { nextChangeSeq } from "../db/change-seq";
 import type { Db } from "../db/client";
-import { benchmarks, campaigns, crates, memberships, sites, users } from "../db/schema";
+import { checklistItems } from "../../shared/schemas/checklists";
+import {
+  benchmarks,
+  campaigns,
+  checklistTemplates,
+  crates,
+  memberships,
+  sites,
+  users,
+} from "../db/schema";
+import { demoChecklists } from "./demo-checklists";
 import { demoBenchmarks, demoCrates } from "./demo-scenario";
 import { hashPassword } from "../services/passwords";
 
@@ -111,6 +121,18 @@ export async function seedDemo(db: Db, nodeEnv: string): Promise<boolean> {
         ...crate,
         id: crypto.randomUUID(),
         campaignId: campaign.id,
+        updatedBy,
+        changeSeq,
+      });
+    }
+    for (const template of demoChecklists) {
+      const changeSeq = await nextChangeSeq(tx, campaign.id);
+      await tx.insert(checklistTemplates).values({
+        id: crypto.randomUUID(),
+        campaignId: campaign.id,
+        title: template.title,
+        purpose: template.purpose,
+        items: checklistItems.parse(template.items),
         updatedBy,
         changeSeq,
       });

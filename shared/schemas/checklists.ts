@@ -2,6 +2,7 @@
 // append-only entries with their author and time. A run copies its template's items when it
 // starts, so editing a template never changes a run already under way.
 import { z } from "zod";
+import { hasNul, nulMessage } from "./text";
 
 export const checklistItemKinds = ["check", "number", "text", "choice", "photo"] as const;
 export type ChecklistItemKind = (typeof checklistItemKinds)[number];
@@ -113,3 +114,76 @@ export const checklistValue = z.union([
   z.string().max(checklistLimits.textResultMax),
 ]);
 export type ChecklistValue = z.infer<typeof checklistValue>;
+
+const noteText = z
+  .string()
+  .trim()
+  .max(checklistLimits.helpMax, `Note must be at most ${checklistLimits.helpMax} characters`)
+  .refine((v) => !hasNul(v), nulMessage("Note"))
+  .default("");
+const when = (field: string) => z.iso.datetime({ offset: true, error: `${field} must be a time` });
+
+/** Starts a run of a template at a site; the server copies the template's items into the run. */
+export const checklistStartInput = z.strictObject({
+  id: z.uuid("id must be a UUID"),
+  templateId: z.uuid("templateId must be a UUID"),
+  siteId: z.uuid("siteId must be a UUID"),
+  startedAt: when("startedAt"),
+});
+
+/** One result at one item: append-only, so a correction is a newer result, never an overwrite. */
+export const checklistRecordInput = z.strictObject({
+  id: z.uuid("id must be a UUID"),
+  runId: z.uuid("runId must be a UUID"),
+  itemId: z.string().min(1).max(40),
+  value: checklistValue.refine((v) => typeof v !== "string" || !hasNul(v), nulMessage("value")),
+  note: noteText,
+  recordedAt: when("recordedAt"),
+});
+
+export const checklistSignOffInput = z.strictObject({
+  id: z.uuid("id must be a UUID"),
+  signedOffAt: when("signedOffAt"),
+  note: noteText,
+});
+
+export const checklistTemplateView = z.object({
+  id: z.uuid(),
+  campaignId: z.uuid(),
+  title: z.string(),
+  purpose: checklistPurpose,
+  items: z.array(checklistItem),
+  version: z.number().int(),
+  updatedAt: z.string(),
+  deletedAt: z.string().nullable(),
+});
+export type ChecklistTemplateView = z.infer<typeof checklistTemplateView>;
+
+export const checklistRunView = z.object({
+  id: z.uuid(),
+  campaignId: z.uuid(),
+  templateId: z.uuid(),
+  siteId: z.uuid(),
+  title: z.string(),
+  purpose: checklistPurpose,
+  items: z.array(checklistItem),
+  startedAt: z.string(),
+  startedBy: z.uuid().nullable(),
+  signedOffAt: z.string().nullable(),
+  signedOffBy: z.uuid().nullable(),
+  signOffNote: z.string(),
+});
+export type ChecklistRunView = z.infer<typeof checklistRunView>;
+
+export const checklistResultView = z.object({
+  id: z.uuid(),
+  campaignId: z.uuid(),
+  runId: z.uuid(),
+  itemId: z.string(),
+  value: checklistValue,
+  outOfRange: z.boolean(),
+  note: z.string(),
+  recordedAt: z.string(),
+  recordedBy: z.uuid().nullable(),
+});
+export type ChecklistResultView = z.infer<typeof checklistResultView>;

@@ -3,6 +3,14 @@
 import { z } from "zod";
 import type { Action } from "../permissions";
 import { attachmentLinkInput, attachmentLinkView } from "../schemas/attachments";
+import {
+  checklistRecordInput,
+  checklistResultView,
+  checklistRunView,
+  checklistSignOffInput,
+  checklistStartInput,
+  checklistTemplateView,
+} from "../schemas/checklists";
 import { siteCreateInput, sitePatchSchema, siteView } from "../schemas/sites";
 
 export const protocolVersion = 1;
@@ -30,6 +38,10 @@ export const mutationSchemas = {
   // Attachments are append-only: added once, removed once, never edited, so they never conflict.
   "attachment.add": attachmentLinkInput,
   "attachment.remove": z.strictObject({ id: z.uuid() }),
+  // Checklist results are append-only; a run is started once and signed off once.
+  "checklist.start": checklistStartInput,
+  "checklist.record": checklistRecordInput,
+  "checklist.signOff": checklistSignOffInput,
 } as const;
 
 export const mutationNames = Object.keys(mutationSchemas) as [
@@ -48,6 +60,9 @@ export const mutationActions: Record<MutationName, Action> = {
   "conflict.resolve": "site.write",
   "attachment.add": "attachment.write",
   "attachment.remove": "attachment.write",
+  "checklist.start": "checklist.record",
+  "checklist.record": "checklist.record",
+  "checklist.signOff": "checklist.record",
 };
 
 export const mutationEnvelope = z.strictObject({
@@ -83,7 +98,14 @@ export const pushResponse = z.object({
 });
 export type PushResponse = z.infer<typeof pushResponse>;
 
-export const syncEntities = ["site", "conflict", "attachment"] as const;
+export const syncEntities = [
+  "site",
+  "conflict",
+  "attachment",
+  "checklistTemplate",
+  "checklistRun",
+  "checklistResult",
+] as const;
 export const syncEntitySchema = z.enum(syncEntities);
 export type SyncEntity = z.infer<typeof syncEntitySchema>;
 
@@ -115,6 +137,24 @@ export const changeRecord = z.discriminatedUnion("entity", [
     seq: z.number().int(),
     id: z.uuid(),
     data: attachmentLinkView,
+  }),
+  z.object({
+    entity: z.literal("checklistTemplate"),
+    seq: z.number().int(),
+    id: z.uuid(),
+    data: checklistTemplateView,
+  }),
+  z.object({
+    entity: z.literal("checklistRun"),
+    seq: z.number().int(),
+    id: z.uuid(),
+    data: checklistRunView,
+  }),
+  z.object({
+    entity: z.literal("checklistResult"),
+    seq: z.number().int(),
+    id: z.uuid(),
+    data: checklistResultView,
   }),
 ]);
 export type ChangeRecord = z.infer<typeof changeRecord>;

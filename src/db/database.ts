@@ -3,6 +3,11 @@
 // schema change, so that an app update never loses the outbox.
 import { Dexie, type DexieOptions, type EntityTable } from "dexie";
 import type { AttachmentContentType, AttachmentLinkView } from "../../shared/schemas/attachments";
+import type {
+  ChecklistResultView,
+  ChecklistRunView,
+  ChecklistTemplateView,
+} from "../../shared/schemas/checklists";
 import type { SiteView } from "../../shared/schemas/sites";
 import type { ConflictView, MutationName, MutationResult } from "../../shared/sync/protocol";
 
@@ -81,6 +86,9 @@ export type EquipotDb = Dexie & {
   serverAttachments: EntityTable<AttachmentLinkView, "id">;
   attachments: EntityTable<LocalAttachment, "id">;
   files: EntityTable<LocalFile, "key">;
+  checklistTemplates: EntityTable<ChecklistTemplateView, "id">;
+  serverChecklistRuns: EntityTable<ChecklistRunView, "id">;
+  serverChecklistResults: EntityTable<ChecklistResultView, "id">;
 };
 
 /**
@@ -106,6 +114,14 @@ export const schemaHistory: readonly { version: number; stores: Record<string, s
         serverAttachments: "id, campaignId, subject.id",
         attachments: "id, campaignId, subject.id",
         files: "key, campaignId, state",
+      },
+    },
+    {
+      version: 3,
+      stores: {
+        checklistTemplates: "id, campaignId",
+        serverChecklistRuns: "id, campaignId, siteId",
+        serverChecklistResults: "id, campaignId, runId",
       },
     },
   ];

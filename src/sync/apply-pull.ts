@@ -2,6 +2,11 @@
 // the outbox entries the server confirms (lastMutationId) leave the outbox, refused ones go to
 // recovery. Bulk reads and writes only: a page costs a handful of IndexedDB requests.
 import type { AttachmentLinkView } from "../../shared/schemas/attachments";
+import type {
+  ChecklistResultView,
+  ChecklistRunView,
+  ChecklistTemplateView,
+} from "../../shared/schemas/checklists";
 import type { SiteView } from "../../shared/schemas/sites";
 import type { PullResponse } from "../../shared/sync/protocol";
 import type { EquipotDb, LocalConflict, RecoveryEntry } from "../db/database";
@@ -17,20 +22,34 @@ export async function applyPulledPage(
   const sites: SiteView[] = [];
   const links: AttachmentLinkView[] = [];
   const conflicts: LocalConflict[] = [];
+  const templates: ChecklistTemplateView[] = [];
+  const runs: ChecklistRunView[] = [];
+  const results: ChecklistResultView[] = [];
   for (const change of page.changes) {
     if (change.entity === "site") sites.push(change.data);
     else if (change.entity === "attachment") links.push(change.data);
-    else conflicts.push({ ...change.data, campaignId });
+    else if (change.entity === "conflict") conflicts.push({ ...change.data, campaignId });
+    else if (change.entity === "checklistTemplate") templates.push(change.data);
+    else if (change.entity === "checklistRun") runs.push(change.data);
+    else results.push(change.data);
   }
   const touched = {
     sites: new Set(sites.map((s) => s.id)),
     attachments: new Set(links.map((l) => l.id)),
   };
-  const tables = [db.meta, db.conflicts, db.recovery, ...viewTables(db)];
+  const checklistTables = [
+    db.checklistTemplates,
+    db.serverChecklistRuns,
+    db.serverChecklistResults,
+  ];
+  const tables = [db.meta, db.conflicts, db.recovery, ...checklistTables, ...viewTables(db)];
   await db.transaction("rw", tables, async () => {
     await db.serverSites.bulkPut(sites);
     await db.serverAttachments.bulkPut(links);
     await db.conflicts.bulkPut(conflicts);
+    await db.checklistTemplates.bulkPut(templates);
+    await db.serverChecklistRuns.bulkPut(runs);
+    await db.serverChecklistResults.bulkPut(results);
     // Confirm only on the last page: then every change of a confirmed mutation is already here,
     // so its record never drops out of the working copy between pages.
     if (page.lastMutationId !== null && !page.hasMore) {

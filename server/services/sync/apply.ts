@@ -10,6 +10,11 @@ import {
   type MutationName,
 } from "../../../shared/sync/protocol";
 import { applyAttachmentAdd, applyAttachmentRemove } from "./attachment-mutations";
+import {
+  applyChecklistRecord,
+  applyChecklistSignOff,
+  applyChecklistStart,
+} from "./checklist-mutations";
 import { applyConflictResolve } from "./conflict-mutations";
 import { Rejection, type ApplyContext, type ApplyOutcome, type Settled } from "./context";
 import { applySiteCreates, applySiteDelete, applySiteUpdate } from "./site-mutations";
@@ -95,6 +100,21 @@ export async function applyMutation(
       return applyAttachmentRemove(
         full,
         parseArgs("attachment.remove", mutationSchemas["attachment.remove"], mutation.args),
+      );
+    case "checklist.start":
+      return applyChecklistStart(
+        full,
+        parseArgs("checklist.start", mutationSchemas["checklist.start"], mutation.args),
+      );
+    case "checklist.record":
+      return applyChecklistRecord(
+        full,
+        parseArgs("checklist.record", mutationSchemas["checklist.record"], mutation.args),
+      );
+    case "checklist.signOff":
+      return applyChecklistSignOff(
+        full,
+        parseArgs("checklist.signOff", mutationSchemas["checklist.signOff"], mutation.args),
       );
   }
 }

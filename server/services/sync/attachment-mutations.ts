@@ -11,6 +11,7 @@ import {
   updateAttachmentLink,
 } from "../../db/repositories/attachment-links";
 import { recordAudit } from "../../db/repositories/audit";
+import { findRunForUpdate } from "../../db/repositories/checklists";
 import { findSiteAnywhere } from "../../db/repositories/sites";
 import { presentAttachmentLink } from "../../presenters/attachment-link";
 import { Rejection, type ApplyContext, type ApplyOutcome } from "./context";
@@ -23,6 +24,8 @@ const subjectFinders: Record<
   (ctx: ApplyContext, id: string) => Promise<boolean>
 > = {
   site: async (ctx, id) => (await findSiteAnywhere(ctx.tx, id))?.campaignId === ctx.campaignId,
+  checklistRun: async (ctx, id) =>
+    (await findRunForUpdate(ctx.tx, ctx.campaignId, id)) !== undefined,
 };
 
 const audit = (ctx: ApplyContext, action: string, id: string, before: unknown, after: unknown) =>

@@ -4,6 +4,7 @@ import type { z } from "zod";
 import type { ChangeRecord, PullResponse, pullQuery } from "../../../shared/sync/protocol";
 import type { Db, Tx } from "../../db/client";
 import { attachmentLinksAfter } from "../../db/repositories/attachment-links";
+import { resultsAfter, runsAfter, templatesAfter } from "../../db/repositories/checklists";
 import {
   conflictsAfter,
   findSyncClient,
@@ -12,6 +13,7 @@ import {
 } from "../../db/repositories/sync";
 import { forbidden } from "../../http-errors";
 import { presentAttachmentLink } from "../../presenters/attachment-link";
+import { presentResult, presentRun, presentTemplate } from "../../presenters/checklist";
 import { presentConflict } from "../../presenters/conflict";
 import { presentSite } from "../../presenters/site";
 import { assertProtocol } from "./push";
@@ -46,6 +48,27 @@ const sources: Source[] = [
       seq: r.changeSeq,
       id: r.id,
       data: presentAttachmentLink(r),
+    })),
+  async (tx, ...range) =>
+    (await templatesAfter(tx, ...range)).map((r) => ({
+      entity: "checklistTemplate",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentTemplate(r),
+    })),
+  async (tx, ...range) =>
+    (await runsAfter(tx, ...range)).map((r) => ({
+      entity: "checklistRun",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentRun(r),
+    })),
+  async (tx, ...range) =>
+    (await resultsAfter(tx, ...range)).map((r) => ({
+      entity: "checklistResult",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentResult(r),
     })),
 ];
 

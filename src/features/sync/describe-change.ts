@@ -38,6 +38,9 @@ export const changeKindLabels: Record<MutationName, string> = {
   "conflict.resolve": "Choice in a conflict",
   "attachment.add": "Photo or file",
   "attachment.remove": "Removal of a photo or file",
+  "checklist.start": "Start of a checklist",
+  "checklist.record": "Checklist result",
+  "checklist.signOff": "Sign-off of a checklist",
 };
 
 /** The site a refused change was about, by its typed name or by the name known on this device. */

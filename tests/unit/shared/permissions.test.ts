@@ -3,7 +3,7 @@ import { actions, actionsOf, can, roles } from "../../../shared/permissions";
 
 // The role table of DESIGN.md §6, restated here as the expectation the code must meet.
 const expected: Record<string, string[]> = {
-  field: ["campaign.read", "site.write", "attachment.write"],
+  field: ["campaign.read", "site.write", "attachment.write", "checklist.record"],
   logistics: ["campaign.read", "site.write", "site.delete", "attachment.write"],
   geodesist: ["campaign.read", "site.write", "site.delete", "attachment.write"],
   reviewer: ["campaign.read"],
@@ -15,6 +15,7 @@ const expected: Record<string, string[]> = {
     "member.manage",
     "invite.create",
     "attachment.write",
+    "checklist.record",
   ],
 };
 

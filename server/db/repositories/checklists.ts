@@ -1,0 +1,103 @@
+// Checklist templates, runs and results; every query is scoped by campaign.
+import { and, asc, eq, gt } from "drizzle-orm";
+import type { Queryable } from "../client";
+import { checklistResults, checklistRuns, checklistTemplates } from "../schema";
+
+export type ChecklistTemplateRow = typeof checklistTemplates.$inferSelect;
+export type ChecklistRunRow = typeof checklistRuns.$inferSelect;
+export type ChecklistResultRow = typeof checklistResults.$inferSelect;
+
+export const findTemplate = async (q: Queryable, campaignId: string, id: string) =>
+  (
+    await q
+      .select()
+      .from(checklistTemplates)
+      .where(and(eq(checklistTemplates.campaignId, campaignId), eq(checklistTemplates.id, id)))
+      .limit(1)
+  )[0];
+
+/** Any campaign: a client-made id that already exists anywhere is refused. */
+export const runIdTaken = async (q: Queryable, id: string) =>
+  (await q.select({ id: checklistRuns.id }).from(checklistRuns).where(eq(checklistRuns.id, id)))
+    .length > 0;
+
+export const resultIdTaken = async (q: Queryable, id: string) =>
+  (
+    await q
+      .select({ id: checklistResults.id })
+      .from(checklistResults)
+      .where(eq(checklistResults.id, id))
+  ).length > 0;
+
+export const findRunForUpdate = async (q: Queryable, campaignId: string, id: string) =>
+  (
+    await q
+      .select()
+      .from(checklistRuns)
+      .where(and(eq(checklistRuns.campaignId, campaignId), eq(checklistRuns.id, id)))
+      .for("update")
+      .limit(1)
+  )[0];
+
+export const resultsOfRun = (q: Queryable, runId: string) =>
+  q.select().from(checklistResults).where(eq(checklistResults.runId, runId));
+
+export async function insertRun(
+  q: Queryable,
+  row: typeof checklistRuns.$inferInsert,
+): Promise<ChecklistRunRow> {
+  const [inserted] = await q.insert(checklistRuns).values(row).returning();
+  if (!inserted) throw new Error("insert into checklist_runs returned no row");
+  return inserted;
+}
+
+export async function updateRun(
+  q: Queryable,
+  id: string,
+  patch: Partial<typeof checklistRuns.$inferInsert>,
+): Promise<ChecklistRunRow> {
+  const [updated] = await q
+    .update(checklistRuns)
+    .set(patch)
+    .where(eq(checklistRuns.id, id))
+    .returning();
+  if (!updated) throw new Error("update of checklist_runs returned no row");
+  return updated;
+}
+
+export async function insertResult(
+  q: Queryable,
+  row: typeof checklistResults.$inferInsert,
+): Promise<ChecklistResultRow> {
+  const [inserted] = await q.insert(checklistResults).values(row).returning();
+  if (!inserted) throw new Error("insert into checklist_results returned no row");
+  return inserted;
+}
+
+type Changes<T> = (q: Queryable, campaignId: string, cursor: number, limit: number) => Promise<T[]>;
+
+export const templatesAfter: Changes<ChecklistTemplateRow> = (q, campaignId, cursor, limit) =>
+  q
+    .select()
+    .from(checklistTemplates)
+    .where(
+      and(eq(checklistTemplates.campaignId, campaignId), gt(checklistTemplates.changeSeq, cursor)),
+    )
+    .orderBy(asc(checklistTemplates.changeSeq))
+    .limit(limit);
+
+export const runsAfter: Changes<ChecklistRunRow> = (q, campaignId, cursor, limit) =>
+  q
+    .select()
+    .from(checklistRuns)
+    .where(and(eq(checklistRuns.campaignId, campaignId), gt(checklistRuns.changeSeq, cursor)))
+    .orderBy(asc(checklistRuns.changeSeq))
+    .limit(limit);
+
+export const resultsAfter: Changes<ChecklistResultRow> = (q, campaignId, cursor, limit) =>
+  q
+    .select()
+    .from(checklistResults)
+    .where(and(eq(checklistResults.campaignId, campaignId), gt(checklistResults.changeSeq, cursor)))
+    .orderBy(asc(checklistResults.changeSeq))
+    .limit(limit);
