@@ -23,6 +23,8 @@ export interface OutboxEntry {
   field?: string;
   /** Set once a push was answered; the entry stays until a pull confirms it. */
   result?: MutationResult;
+  /** What the working copy needs beyond the arguments (a run's copied items, a result's flag). */
+  snapshot?: unknown;
 }
 
 /** The working copy shown to the user: the server's record with this tablet's pending changes on top. */
@@ -89,7 +91,17 @@ export type EquipotDb = Dexie & {
   checklistTemplates: EntityTable<ChecklistTemplateView, "id">;
   serverChecklistRuns: EntityTable<ChecklistRunView, "id">;
   serverChecklistResults: EntityTable<ChecklistResultView, "id">;
+  checklistRuns: EntityTable<LocalChecklistRun, "id">;
+  checklistResults: EntityTable<LocalChecklistResult, "id">;
 };
+
+export interface LocalChecklistRun extends ChecklistRunView {
+  pending: boolean;
+}
+
+export interface LocalChecklistResult extends ChecklistResultView {
+  pending: boolean;
+}
 
 /**
  * Every schema version ever shipped, oldest first. Never edit a shipped entry: add a new one (with
@@ -122,6 +134,8 @@ export const schemaHistory: readonly { version: number; stores: Record<string, s
         checklistTemplates: "id, campaignId",
         serverChecklistRuns: "id, campaignId, siteId",
         serverChecklistResults: "id, campaignId, runId",
+        checklistRuns: "id, campaignId, siteId",
+        checklistResults: "id, campaignId, runId",
       },
     },
   ];

@@ -14,6 +14,7 @@ export interface LocalMutation {
   entityId: string;
   args: unknown;
   field?: string;
+  snapshot?: unknown;
 }
 
 export async function recordMutation(

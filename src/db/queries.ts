@@ -1,9 +1,11 @@
 // Reads of the working copy, for live queries (dexie-react-hooks) and tests. Components reach them
 // through hooks, never Dexie itself.
+import type { ChecklistTemplateView } from "../../shared/schemas/checklists";
 import {
   fileKey,
   type EquipotDb,
   type LocalAttachment,
+  type LocalChecklistRun,
   type LocalConflict,
   type LocalFile,
   type LocalSite,
@@ -85,4 +87,54 @@ export async function findFile(
 export async function listRefusedFiles(db: EquipotDb, campaignId: string): Promise<LocalFile[]> {
   const all = await db.files.where("state").equals("refused").toArray();
   return all.filter((f) => f.campaignId === campaignId);
+}
+
+const purposeOrder = [
+  "arrival",
+  "unpacking",
+  "vacuum-bakeout",
+  "laser-lockup",
+  "comparison-start",
+  "pack-down",
+  "other",
+];
+
+/** The campaign's checklist templates in the order of a site's days. */
+export async function listChecklistTemplates(
+  db: EquipotDb,
+  campaignId: string,
+): Promise<ChecklistTemplateView[]> {
+  const all = await db.checklistTemplates.where("campaignId").equals(campaignId).toArray();
+  return all
+    .filter((t) => t.deletedAt === null)
+    .sort(
+      (a, b) =>
+        purposeOrder.indexOf(a.purpose) - purposeOrder.indexOf(b.purpose) ||
+        a.title.localeCompare(b.title),
+    );
+}
+
+/** Runs at one site, the open ones first, newest first within each. */
+export async function listChecklistRuns(
+  db: EquipotDb,
+  campaignId: string,
+  siteId: string,
+): Promise<LocalChecklistRun[]> {
+  const all = await db.checklistRuns.where("siteId").equals(siteId).toArray();
+  return all
+    .filter((r) => r.campaignId === campaignId)
+    .sort(
+      (a, b) =>
+        Number(a.signedOffAt !== null) - Number(b.signedOffAt !== null) ||
+        b.startedAt.localeCompare(a.startedAt),
+    );
+}
+
+export async function findChecklistRun(
+  db: EquipotDb,
+  campaignId: string,
+  runId: string,
+): Promise<LocalChecklistRun | null> {
+  const run = await db.checklistRuns.get(runId);
+  return run !== undefined && run.campaignId === campaignId ? run : null;
 }

@@ -2,6 +2,7 @@
 // after every local write and every pulled page. A few bulk reads and writes per call, however
 // many records, so a pulled page of 500 costs a handful of IndexedDB requests, not thousands.
 import { rebuildAttachmentViews } from "./attachment-view";
+import { rebuildChecklistResultViews, rebuildChecklistRunViews } from "./checklist-view";
 import type { EquipotDb } from "./database";
 import { rebuildSiteViews } from "./site-view";
 import type { ViewKind } from "./working-copy";
@@ -15,9 +16,16 @@ export const viewTables = (db: EquipotDb) => [
   db.sites,
   db.serverAttachments,
   db.attachments,
+  db.checklistTemplates,
+  db.serverChecklistRuns,
+  db.checklistRuns,
+  db.serverChecklistResults,
+  db.checklistResults,
 ];
 
 export async function rebuildViews(db: EquipotDb, touched: Touched): Promise<void> {
   await rebuildSiteViews(db, touched.sites ?? []);
   await rebuildAttachmentViews(db, touched.attachments ?? []);
+  await rebuildChecklistRunViews(db, touched.checklistRuns ?? []);
+  await rebuildChecklistResultViews(db, touched.checklistResults ?? []);
 }

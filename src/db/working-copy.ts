@@ -4,11 +4,15 @@ import type { EntityTable, IDType } from "dexie";
 import type { MutationName } from "../../shared/sync/protocol";
 import type { EquipotDb, OutboxEntry } from "./database";
 
-export type ViewKind = "sites" | "attachments";
+export type ViewKind = "sites" | "attachments" | "checklistRuns" | "checklistResults";
 
 /** Which working copy a mutation changes (a conflict's choice belongs to its site). */
-export const viewKindOf = (name: MutationName): ViewKind =>
-  name.startsWith("attachment.") ? "attachments" : "sites";
+export function viewKindOf(name: MutationName): ViewKind {
+  if (name.startsWith("attachment.")) return "attachments";
+  if (name === "checklist.record") return "checklistResults";
+  if (name.startsWith("checklist.")) return "checklistRuns";
+  return "sites";
+}
 
 interface Rebuild<S extends { id: string }, W extends { id: string }> {
   ids: Iterable<string>;

@@ -36,6 +36,8 @@ export async function applyPulledPage(
   const touched = {
     sites: new Set(sites.map((s) => s.id)),
     attachments: new Set(links.map((l) => l.id)),
+    checklistRuns: new Set(runs.map((r) => r.id)),
+    checklistResults: new Set(results.map((r) => r.id)),
   };
   const checklistTables = [
     db.checklistTemplates,

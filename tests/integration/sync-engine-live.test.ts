@@ -4,7 +4,18 @@ import { IDBFactory, IDBKeyRange } from "fake-indexeddb";
 import type { z } from "zod";
 import { openDatabase } from "../../src/db/database";
 import { addAttachmentLocally } from "../../src/db/attachment-store";
-import { listAttachments, listRefusedFiles } from "../../src/db/queries";
+import {
+  latestResults,
+  recordResultLocally,
+  signOffLocally,
+  startChecklistLocally,
+} from "../../src/db/checklist-store";
+import {
+  findChecklistRun,
+  listAttachments,
+  listChecklistTemplates,
+  listRefusedFiles,
+} from "../../src/db/queries";
 import { createSiteLocally, updateSiteLocally } from "../../src/db/site-store";
 import { createSyncEngine } from "../../src/sync/engine";
 import { createHttpTransport } from "../../src/sync/http-transport";
@@ -282,6 +293,48 @@ describe("engine against the real server", () => {
     const [file] = await listRefusedFiles(db, campaignId);
     expect(file?.refusal).toMatch(/Accepted:/);
     expect(engine.getStatus().pendingFiles).toBe(0);
+  });
+
+  it("brings a checklist worked offline to the server and to another tablet", async () => {
+    const tokenA = await signIn("field");
+    const tokenB = await signIn("geodesist");
+    const dbA = newDb();
+    const dbB = newDb();
+    const engineA = createSyncEngine({
+      db: dbA,
+      transport: createHttpTransport(requester(tokenA)),
+      campaignIds: () => [campaignId],
+    });
+    const engineB = createSyncEngine({
+      db: dbB,
+      transport: createHttpTransport(requester(tokenB)),
+      campaignIds: () => [campaignId],
+    });
+    await engineA.sync();
+    const [template] = (await listChecklistTemplates(dbA, campaignId)).filter(
+      (t) => t.purpose === "vacuum-bakeout",
+    );
+    const site = await dbA.sites.where("campaignId").equals(campaignId).first();
+    if (!template || !site) throw new Error("the demo template or site was not pulled");
+    const runId = await startChecklistLocally(dbA, campaignId, template.id, site.id);
+    const flagged = await recordResultLocally(dbA, campaignId, runId, "pressure", 3e-7);
+    expect(flagged.outOfRange).toBe(true);
+    await recordResultLocally(dbA, campaignId, runId, "bake-temp", 120);
+    await recordResultLocally(dbA, campaignId, runId, "ion-pump", true);
+    await signOffLocally(dbA, campaignId, runId, "Pump down slow; watched overnight");
+    await engineA.sync();
+    expect(await dbA.outbox.count()).toBe(0);
+    expect(await findChecklistRun(dbA, campaignId, runId)).toMatchObject({ pending: false });
+
+    await engineB.sync();
+    expect(await findChecklistRun(dbB, campaignId, runId)).toMatchObject({
+      title: "Vacuum and bake-out",
+      signOffNote: "Pump down slow; watched overnight",
+      signedOffAt: expect.any(String),
+    });
+    const results = await latestResults(dbB, runId);
+    expect(results.get("pressure")).toMatchObject({ value: 3e-7, outOfRange: true });
+    expect([...results.keys()].sort()).toEqual(["bake-temp", "ion-pump", "pressure"]);
   });
 
   it("explains an unreachable server in plain words and keeps the outbox", async () => {
