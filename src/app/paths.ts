@@ -11,6 +11,8 @@ export const paths = {
   newSite: (campaignId: string) => `${campaign(campaignId)}/sites/new`,
   editSite: (campaignId: string, siteId: string) =>
     `${campaign(campaignId)}/sites/${encodeURIComponent(siteId)}/edit`,
+  checklistRun: (campaignId: string, runId: string) =>
+    `${campaign(campaignId)}/checklists/${encodeURIComponent(runId)}`,
   members: (campaignId: string) => `${campaign(campaignId)}/members`,
   conflicts: (campaignId: string) => `${campaign(campaignId)}/conflicts`,
   device: "/device",

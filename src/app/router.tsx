@@ -12,6 +12,7 @@ import { NotFoundRoute } from "./routes/not-found-route";
 import { RouteError } from "./routes/route-error";
 import { SignInRoute } from "./routes/sign-in-route";
 import { SiteEditRoute } from "./routes/site-edit-route";
+import { ChecklistRunRoute } from "./routes/checklist-run-route";
 import { SiteNewRoute } from "./routes/site-new-route";
 import { SitesRoute } from "./routes/sites-route";
 
@@ -45,6 +46,7 @@ export const router = createBrowserRouter([
               { path: "sites", element: <SitesRoute /> },
               { path: "sites/new", element: <SiteNewRoute /> },
               { path: "sites/:siteId/edit", element: <SiteEditRoute /> },
+              { path: "checklists/:runId", element: <ChecklistRunRoute /> },
               { path: "members", element: <MembersRoute /> },
               { path: "conflicts", element: <ConflictsRoute /> },
             ],

@@ -1,11 +1,10 @@
 // axe checks on the main screens, in each theme: no serious or critical violations. Screenshots of
 // each theme are kept to be looked at.
-import { AxeBuilder } from "@axe-core/playwright";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { launchBrowser, screenshot, screenshotOnFailure, viewports } from "../helpers/browser";
 import { startTestServer, type TestServer } from "../helpers/server";
-import { openDemoSites } from "./flows";
+import { openDemoSites, seriousViolations } from "./flows";
 
 let server: TestServer;
 let browser: Browser;
@@ -25,15 +24,6 @@ afterAll(async () => {
   await browser?.close();
   await server?.stop();
 });
-
-async function seriousViolations(target: Page): Promise<string[]> {
-  const results = await new AxeBuilder({ page: target })
-    .withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa", "best-practice"])
-    .analyze();
-  return results.violations
-    .filter((v) => v.impact === "serious" || v.impact === "critical")
-    .map((v) => `${v.id} (${v.impact}): ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
-}
 
 async function chooseLook(target: Page, label: string) {
   await target.getByRole("button", { name: "Settings" }).click();

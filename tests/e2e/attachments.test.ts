@@ -12,8 +12,7 @@ import {
   type Profile,
 } from "../helpers/browser";
 import { startTestServer, type TestServer } from "../helpers/server";
-import { protocolVersion, type PullResponse } from "../../shared/sync/protocol";
-import { apiSignIn, demoCampaignName, openDemoSites, waitForSyncStatus } from "./flows";
+import { openDemoSites, pullDemoCampaign, readyForOffline, waitForSyncStatus } from "./flows";
 
 let server: TestServer;
 let profile: Profile;
@@ -68,9 +67,7 @@ const photoList = (page: Page, site: string) =>
 test("a photo taken offline is kept, sent with progress when online, and seen on another device", async () => {
   const page = profile.context.pages()[0] ?? (await profile.context.newPage());
   current = page;
-  await openDemoSites(page, server.baseUrl, "field");
-  await waitForSyncStatus(page, "All changes sent");
-  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
+  await readyForOffline(page, server.baseUrl, "field");
   const picture = await largePicture(page);
 
   await profile.context.setOffline(true);
@@ -116,16 +113,9 @@ test("a photo taken offline is kept, sent with progress when online, and seen on
   await page.unroute("**/attachments/*");
 
   // The server has the link and the same bytes, decided to be a JPEG from the content.
-  const session = await apiSignIn(server.baseUrl, "logistics");
-  const campaignId =
-    session.memberships.find((m) => m.campaignName === demoCampaignName)?.campaignId ?? "";
-  const auth = { authorization: `Bearer ${session.accessToken}` };
-  const pulled = (await (
-    await fetch(
-      `${server.baseUrl}/api/sync/pull?protocolVersion=${protocolVersion}&campaign=${campaignId}&limit=1000`,
-      { headers: auth },
-    )
-  ).json()) as PullResponse;
+  const pulled = await pullDemoCampaign(server.baseUrl, "logistics");
+  const { campaignId } = pulled;
+  const auth = { authorization: `Bearer ${pulled.token}` };
   const link = pulled.changes.find((c) => c.entity === "attachment");
   expect(link?.data).toMatchObject({ caption, contentType: "image/jpeg", name: "IMG_2207.jpg" });
   const sha = link?.entity === "attachment" ? link.data.sha256 : "";

@@ -1,6 +1,8 @@
 // Steps shared by the end-to-end tests, written as a person would use the app.
 import { expect } from "vitest";
+import { AxeBuilder } from "@axe-core/playwright";
 import type { Page } from "playwright-core";
+import { protocolVersion, type PullResponse } from "../../shared/sync/protocol";
 
 export const demoPassword = "equipot-demo";
 export const demoCampaignName = "Kestrel Ridge height link 2027";
@@ -153,4 +155,36 @@ export async function serverSites(baseUrl: string, role: DemoRole): Promise<ApiS
   );
   expect(list.status).toBe(200);
   return (list.json as { sites: ApiSite[] }).sites;
+}
+
+/** axe's serious and critical findings on the page as it is now (WCAG 2.2 AA and best practice). */
+export async function seriousViolations(target: Page): Promise<string[]> {
+  const results = await new AxeBuilder({ page: target })
+    .withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa", "best-practice"])
+    .analyze();
+  return results.violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .map((v) => `${v.id} (${v.impact}): ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
+}
+
+/** Opens the demo sites, waits for the first sync and for the service worker: ready to go offline. */
+export async function readyForOffline(page: Page, baseUrl: string, role: DemoRole) {
+  await openDemoSites(page, baseUrl, role);
+  await waitForSyncStatus(page, "All changes sent");
+  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
+}
+
+/** Everything the server holds for the demo campaign, pulled with another person's token. */
+export async function pullDemoCampaign(baseUrl: string, role: DemoRole) {
+  const session = await apiSignIn(baseUrl, role);
+  const campaignId =
+    session.memberships.find((m) => m.campaignName === demoCampaignName)?.campaignId ?? "";
+  const query = `protocolVersion=${protocolVersion}&campaign=${campaignId}&limit=1000`;
+  const response = await fetch(`${baseUrl}/api/sync/pull?${query}`, {
+    headers: { authorization: `Bearer ${session.accessToken}` },
+  });
+  expect(response.status).toBe(200);
+  const page = (await response.json()) as PullResponse;
+  expect(page.hasMore).toBe(false);
+  return { campaignId, token: session.accessToken, changes: page.changes };
 }

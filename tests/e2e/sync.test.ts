@@ -22,6 +22,7 @@ import {
   expectSitesListed,
   signIn,
   openDemoSites,
+  readyForOffline,
   serverSites,
   syncStatusText,
   waitForSyncStatus,
@@ -62,9 +63,7 @@ const pendingRow = (page: Page, name: string) =>
 test("sites added and edited offline survive a reload and reach the server and others", async () => {
   const page = profile.context.pages()[0] ?? (await profile.context.newPage());
   current = page;
-  await openDemoSites(page, server.baseUrl, "field");
-  await waitForSyncStatus(page, "All changes sent");
-  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
+  await readyForOffline(page, server.baseUrl, "field");
 
   await profile.context.setOffline(true);
   await page.getByRole("banner").getByRole("status").filter({ hasText: "Offline" }).waitFor();

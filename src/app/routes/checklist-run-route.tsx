@@ -1,0 +1,53 @@
+import { useParams } from "react-router-dom";
+import { can } from "../../../shared/permissions";
+import { ChecklistRun } from "../../features/checklists/components/checklist-run";
+import { useChecklistRun } from "../../features/checklists/hooks/use-checklists";
+import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
+import { LinkButton } from "../../components/button";
+import { Loading } from "../../components/loading";
+import { Notice } from "../../components/notice";
+import { PageHeader } from "../../components/page-header";
+import { formatLocalBeside, formatUtc } from "../../lib/format";
+import { useCampaign } from "../layouts/campaign-layout";
+import { paths } from "../paths";
+
+export function ChecklistRunRoute() {
+  const { campaignId, role } = useCampaign();
+  const { runId = "" } = useParams();
+  const { run, results } = useChecklistRun(campaignId, runId);
+  const site = useLocalSite(campaignId, run?.siteId ?? "");
+  if (run === undefined || results === undefined)
+    return <Loading label="Reading the checklist on this device…" />;
+  if (run === null) {
+    return (
+      <div className="flex flex-col gap-4">
+        <Notice tone="attention" title="Checklist not found">
+          It is not on this device yet.
+        </Notice>
+        <div>
+          <LinkButton to={paths.sites(campaignId)}>Back to the sites</LinkButton>
+        </div>
+      </div>
+    );
+  }
+  const siteName = site?.name ?? "the site";
+  return (
+    <>
+      <PageHeader
+        title={run.title}
+        lead={`At ${siteName} · started ${formatUtc(run.startedAt)} (${formatLocalBeside(run.startedAt)})`}
+      />
+      <div className="mb-4">
+        <LinkButton tone="quiet" className="px-0" to={paths.editSite(campaignId, run.siteId)}>
+          Back to {siteName}
+        </LinkButton>
+      </div>
+      <ChecklistRun
+        campaignId={campaignId}
+        run={run}
+        results={results}
+        canRecord={can(role, "checklist.record")}
+      />
+    </>
+  );
+}
