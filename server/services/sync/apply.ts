@@ -64,57 +64,40 @@ export const applySiteCreateRun = (
     mutations.map((m) => checkSiteCreate(ctx.role, m)),
   );
 
+type Args<N extends MutationName> = z.output<(typeof mutationSchemas)[N]>;
+type Applier<N extends MutationName> = (ctx: ApplyContext, args: Args<N>) => Promise<ApplyOutcome>;
+
+/** One apply function per mutation kind (creates go through the run above, even alone). */
+const appliers: { [N in Exclude<MutationName, "site.create">]: Applier<N> } = {
+  "site.update": applySiteUpdate,
+  "site.delete": applySiteDelete,
+  "conflict.resolve": applyConflictResolve,
+  "attachment.add": applyAttachmentAdd,
+  "attachment.remove": applyAttachmentRemove,
+  "checklist.start": applyChecklistStart,
+  "checklist.record": applyChecklistRecord,
+  "checklist.signOff": applyChecklistSignOff,
+};
+
+function applyOne<N extends Exclude<MutationName, "site.create">>(
+  ctx: ApplyContext,
+  name: N,
+  rawArgs: unknown,
+): Promise<ApplyOutcome> {
+  const apply: Applier<N> = appliers[name];
+  // The schema is the one of kind N, so its output is Args<N>; TypeScript cannot follow the index.
+  const args = parseArgs(name, mutationSchemas[name], rawArgs) as Args<N>;
+  return apply(ctx, args);
+}
+
 export async function applyMutation(
   ctx: PushContext,
   mutation: MutationEnvelope,
 ): Promise<ApplyOutcome> {
   const full: ApplyContext = { ...ctx, role: allowedRole(ctx.role, mutation.name) };
-  switch (mutation.name) {
-    case "site.create": {
-      const [settled] = await applySiteCreateRun(ctx, [mutation]);
-      if (settled instanceof Rejection) throw settled;
-      if (!settled) throw new Error("a run of one create gave no outcome");
-      return settled;
-    }
-    case "site.update":
-      return applySiteUpdate(
-        full,
-        parseArgs("site.update", mutationSchemas["site.update"], mutation.args),
-      );
-    case "site.delete":
-      return applySiteDelete(
-        full,
-        parseArgs("site.delete", mutationSchemas["site.delete"], mutation.args),
-      );
-    case "conflict.resolve":
-      return applyConflictResolve(
-        full,
-        parseArgs("conflict.resolve", mutationSchemas["conflict.resolve"], mutation.args),
-      );
-    case "attachment.add":
-      return applyAttachmentAdd(
-        full,
-        parseArgs("attachment.add", mutationSchemas["attachment.add"], mutation.args),
-      );
-    case "attachment.remove":
-      return applyAttachmentRemove(
-        full,
-        parseArgs("attachment.remove", mutationSchemas["attachment.remove"], mutation.args),
-      );
-    case "checklist.start":
-      return applyChecklistStart(
-        full,
-        parseArgs("checklist.start", mutationSchemas["checklist.start"], mutation.args),
-      );
-    case "checklist.record":
-      return applyChecklistRecord(
-        full,
-        parseArgs("checklist.record", mutationSchemas["checklist.record"], mutation.args),
-      );
-    case "checklist.signOff":
-      return applyChecklistSignOff(
-        full,
-        parseArgs("checklist.signOff", mutationSchemas["checklist.signOff"], mutation.args),
-      );
-  }
+  if (mutation.name !== "site.create") return applyOne(full, mutation.name, mutation.args);
+  const [settled] = await applySiteCreateRun(ctx, [mutation]);
+  if (settled instanceof Rejection) throw settled;
+  if (!settled) throw new Error("a run of one create gave no outcome");
+  return settled;
 }
