@@ -23,6 +23,16 @@ import { checklistPurposes } from "../../shared/schemas/checklists";
 import { siteKinds } from "../../shared/schemas/sites";
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
+/** The campaign a row belongs to; the row goes with the campaign. */
+const campaignRef = () =>
+  uuid("campaign_id")
+    .notNull()
+    .references(() => campaigns.id, { onDelete: "cascade" });
+/** Position in the campaign's change stream (db/change-seq.ts). */
+const changeSeq = () => bigint("change_seq", { mode: "number" }).notNull();
+/** Who did it; kept as null when the person's account is deleted. */
+const userRef = (column: string) =>
+  uuid(column).references(() => users.id, { onDelete: "set null" });
 
 export const roleEnum = pgEnum("role", roles);
 export const siteKindEnum = pgEnum("site_kind", siteKinds);
@@ -52,9 +62,7 @@ export const campaigns = pgTable("campaigns", {
 export const memberships = pgTable(
   "memberships",
   {
-    campaignId: uuid("campaign_id")
-      .notNull()
-      .references(() => campaigns.id, { onDelete: "cascade" }),
+    campaignId: campaignRef(),
     userId: uuid("user_id")
       .notNull()
       .references(() => users.id, { onDelete: "cascade" }),
@@ -91,13 +99,11 @@ export const invites = pgTable(
   "invites",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    campaignId: uuid("campaign_id")
-      .notNull()
-      .references(() => campaigns.id, { onDelete: "cascade" }),
+    campaignId: campaignRef(),
     email: text("email").notNull(),
     role: roleEnum("role").notNull(),
     tokenHash: text("token_hash").notNull(),
-    invitedBy: uuid("invited_by").references(() => users.id, { onDelete: "set null" }),
+    invitedBy: userRef("invited_by"),
     createdAt: createdAt(),
     expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
     acceptedAt: timestamp("accepted_at", { withTimezone: true }),
@@ -117,9 +123,7 @@ export const sites = pgTable(
   "sites",
   {
     id: uuid("id").primaryKey(),
-    campaignId: uuid("campaign_id")
-      .notNull()
-      .references(() => campaigns.id, { onDelete: "cascade" }),
+    campaignId: campaignRef(),
     name: text("name").notNull(),
     kind: siteKindEnum("kind").notNull(),
     latitudeDeg: doublePrecision("latitude_deg").notNull(),
@@ -127,10 +131,10 @@ export const sites = pgTable(
     approxHeightM: doublePrecision("approx_height_m").notNull(),
     notes: text("notes").notNull().default(""),
     version: integer("version").notNull().default(1),
-    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+    changeSeq: changeSeq(),
     createdAt: createdAt(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
-    updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
+    updatedBy: userRef("updated_by"),
     deletedAt: timestamp("deleted_at", { withTimezone: true }),
   },
   (t) => [index("sites_change_idx").on(t.campaignId, t.changeSeq)],
@@ -141,7 +145,7 @@ export const auditEvents = pgTable(
   {
     id: bigserial("id", { mode: "number" }).primaryKey(),
     campaignId: uuid("campaign_id").references(() => campaigns.id, { onDelete: "cascade" }),
-    userId: uuid("user_id").references(() => users.id, { onDelete: "set null" }),
+    userId: userRef("user_id"),
     /** The sync client (tablet) the change came from, when it came through sync. */
     clientId: uuid("client_id"),
     action: text("action").notNull(),
@@ -195,7 +199,7 @@ export const syncRejections = pgTable(
     clientId: uuid("client_id")
       .notNull()
       .references(() => syncClients.id, { onDelete: "cascade" }),
-    userId: uuid("user_id").references(() => users.id, { onDelete: "set null" }),
+    userId: userRef("user_id"),
     campaignId: uuid("campaign_id"),
     mutationId: bigint("mutation_id", { mode: "number" }).notNull(),
     name: text("name").notNull(),
@@ -211,9 +215,7 @@ export const conflicts = pgTable(
   "conflicts",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    campaignId: uuid("campaign_id")
-      .notNull()
-      .references(() => campaigns.id, { onDelete: "cascade" }),
+    campaignId: campaignRef(),
     entity: text("entity").notNull(),
     entityId: uuid("entity_id").notNull(),
     field: text("field").notNull(),
@@ -222,13 +224,13 @@ export const conflicts = pgTable(
     clientValue: jsonb("client_value"),
     clientId: uuid("client_id"),
     mutationId: bigint("mutation_id", { mode: "number" }),
-    openedBy: uuid("opened_by").references(() => users.id, { onDelete: "set null" }),
+    openedBy: userRef("opened_by"),
     openedAt: timestamp("opened_at", { withTimezone: true }).notNull().defaultNow(),
     resolvedAt: timestamp("resolved_at", { withTimezone: true }),
-    resolvedBy: uuid("resolved_by").references(() => users.id, { onDelete: "set null" }),
+    resolvedBy: userRef("resolved_by"),
     resolvedValue: jsonb("resolved_value"),
     version: integer("version").notNull().default(1),
-    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+    changeSeq: changeSeq(),
   },
   (t) => [index("conflicts_change_idx").on(t.campaignId, t.changeSeq)],
 );
@@ -237,9 +239,7 @@ export const conflicts = pgTable(
 export const attachments = pgTable(
   "attachments",
   {
-    campaignId: uuid("campaign_id")
-      .notNull()
-      .references(() => campaigns.id, { onDelete: "cascade" }),
+    campaignId: campaignRef(),
     /** SHA-256 of the bytes as 64 lowercase hex digits, recomputed by the server. */
     sha256: text("sha256").notNull(),
     /** Decided from the bytes, never taken from the request. */
@@ -249,7 +249,7 @@ export const attachments = pgTable(
     storageKey: text("storage_key").notNull(),
     /** Sanitised, for display only. */
     originalName: text("original_name"),
-    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdBy: userRef("created_by"),
     createdAt: createdAt(),
   },
   (t) => [
@@ -267,9 +267,7 @@ export const attachmentLinks = pgTable(
   "attachment_links",
   {
     id: uuid("id").primaryKey(),
-    campaignId: uuid("campaign_id")
-      .notNull()
-      .references(() => campaigns.id, { onDelete: "cascade" }),
+    campaignId: campaignRef(),
     /** The bytes may arrive before or after the link: no foreign key to attachments. */
     sha256: text("sha256").notNull(),
     contentType: text("content_type").notNull(),
@@ -279,11 +277,11 @@ export const attachmentLinks = pgTable(
     subjectId: uuid("subject_id").notNull(),
     caption: text("caption").notNull().default(""),
     takenAt: timestamp("taken_at", { withTimezone: true }),
-    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdBy: userRef("created_by"),
     createdAt: createdAt(),
     removedAt: timestamp("removed_at", { withTimezone: true }),
-    removedBy: uuid("removed_by").references(() => users.id, { onDelete: "set null" }),
-    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+    removedBy: userRef("removed_by"),
+    changeSeq: changeSeq(),
   },
   (t) => [
     index("attachment_links_change_idx").on(t.campaignId, t.changeSeq),
@@ -299,17 +297,15 @@ export const checklistTemplates = pgTable(
   "checklist_templates",
   {
     id: uuid("id").primaryKey(),
-    campaignId: uuid("campaign_id")
-      .notNull()
-      .references(() => campaigns.id, { onDelete: "cascade" }),
+    campaignId: campaignRef(),
     title: text("title").notNull(),
     purpose: checklistPurposeEnum("purpose").notNull(),
     items: jsonb("items").notNull(),
     version: integer("version").notNull().default(1),
-    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+    changeSeq: changeSeq(),
     createdAt: createdAt(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
-    updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
+    updatedBy: userRef("updated_by"),
     deletedAt: timestamp("deleted_at", { withTimezone: true }),
   },
   (t) => [index("checklist_templates_change_idx").on(t.campaignId, t.changeSeq)],
@@ -320,9 +316,7 @@ export const checklistRuns = pgTable(
   "checklist_runs",
   {
     id: uuid("id").primaryKey(),
-    campaignId: uuid("campaign_id")
-      .notNull()
-      .references(() => campaigns.id, { onDelete: "cascade" }),
+    campaignId: campaignRef(),
     templateId: uuid("template_id")
       .notNull()
       .references(() => checklistTemplates.id),
@@ -333,11 +327,11 @@ export const checklistRuns = pgTable(
     purpose: checklistPurposeEnum("purpose").notNull(),
     items: jsonb("items").notNull(),
     startedAt: timestamp("started_at", { withTimezone: true }).notNull(),
-    startedBy: uuid("started_by").references(() => users.id, { onDelete: "set null" }),
+    startedBy: userRef("started_by"),
     signedOffAt: timestamp("signed_off_at", { withTimezone: true }),
-    signedOffBy: uuid("signed_off_by").references(() => users.id, { onDelete: "set null" }),
+    signedOffBy: userRef("signed_off_by"),
     signOffNote: text("sign_off_note").notNull().default(""),
-    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+    changeSeq: changeSeq(),
   },
   (t) => [
     index("checklist_runs_change_idx").on(t.campaignId, t.changeSeq),
@@ -350,9 +344,7 @@ export const checklistResults = pgTable(
   "checklist_results",
   {
     id: uuid("id").primaryKey(),
-    campaignId: uuid("campaign_id")
-      .notNull()
-      .references(() => campaigns.id, { onDelete: "cascade" }),
+    campaignId: campaignRef(),
     runId: uuid("run_id")
       .notNull()
       .references(() => checklistRuns.id),
@@ -361,8 +353,8 @@ export const checklistResults = pgTable(
     outOfRange: boolean("out_of_range").notNull(),
     note: text("note").notNull().default(""),
     recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull(),
-    recordedBy: uuid("recorded_by").references(() => users.id, { onDelete: "set null" }),
-    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+    recordedBy: userRef("recorded_by"),
+    changeSeq: changeSeq(),
   },
   (t) => [
     index("checklist_results_change_idx").on(t.campaignId, t.changeSeq),
@@ -374,9 +366,7 @@ export const crates = pgTable(
   "crates",
   {
     id: uuid("id").primaryKey(),
-    campaignId: uuid("campaign_id")
-      .notNull()
-      .references(() => campaigns.id, { onDelete: "cascade" }),
+    campaignId: campaignRef(),
     label: text("label").notNull(),
     contents: text("contents").notNull(),
     weightKg: doublePrecision("weight_kg").notNull(),
@@ -385,9 +375,9 @@ export const crates = pgTable(
     temperatureMaxC: doublePrecision("temperature_max_c").notNull(),
     notes: text("notes").notNull().default(""),
     version: integer("version").notNull().default(1),
-    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+    changeSeq: changeSeq(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
-    updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
+    updatedBy: userRef("updated_by"),
     deletedAt: timestamp("deleted_at", { withTimezone: true }),
   },
   (t) => [index("crates_change_idx").on(t.campaignId, t.changeSeq)],
@@ -398,9 +388,7 @@ export const benchmarks = pgTable(
   "benchmarks",
   {
     id: uuid("id").primaryKey(),
-    campaignId: uuid("campaign_id")
-      .notNull()
-      .references(() => campaigns.id, { onDelete: "cascade" }),
+    campaignId: campaignRef(),
     code: text("code").notNull(),
     description: text("description").notNull().default(""),
     latitudeDeg: doublePrecision("latitude_deg").notNull(),
@@ -410,9 +398,9 @@ export const benchmarks = pgTable(
     heightSystem: text("height_system").notNull(),
     source: text("source").notNull().default(""),
     version: integer("version").notNull().default(1),
-    changeSeq: bigint("change_seq", { mode: "number" }).notNull(),
+    changeSeq: changeSeq(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
-    updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
+    updatedBy: userRef("updated_by"),
     deletedAt: timestamp("deleted_at", { withTimezone: true }),
   },
   (t) => [index("benchmarks_change_idx").on(t.campaignId, t.changeSeq)],

@@ -138,6 +138,11 @@ export const schemaHistory: readonly { version: number; stores: Record<string, s
         checklistResults: "id, campaignId, runId",
       },
     },
+    {
+      version: 4,
+      // Waiting files by age from the index alone, without reading their bytes.
+      stores: { files: "key, campaignId, state, [state+addedAt]" },
+    },
   ];
 
 export const localSchemaVersion = schemaHistory.at(-1)?.version ?? 1;

@@ -1,21 +1,13 @@
 // Every local write: the outbox entry, anything written beside it, and the rebuilt working copy in
 // one transaction. The promise resolves only after it committed, so "saved" is never shown early.
 import type { Table } from "dexie";
-import type { MutationName } from "../../shared/sync/protocol";
-import type { EquipotDb } from "./database";
+import type { EquipotDb, OutboxEntry } from "./database";
 import { takeMutationId } from "./meta";
 import { rebuildViews, viewTables } from "./views";
 import { viewKindOf } from "./working-copy";
 
-export interface LocalMutation {
-  campaignId: string;
-  name: MutationName;
-  /** The record the mutation touches, so its working copy can be rebuilt. */
-  entityId: string;
-  args: unknown;
-  field?: string;
-  snapshot?: unknown;
-}
+/** An outbox entry before it has its id, time and push answer. */
+export type LocalMutation = Omit<OutboxEntry, "mutationId" | "createdAt" | "result">;
 
 export async function recordMutation(
   db: EquipotDb,

@@ -1,5 +1,6 @@
 // Reads of the working copy, for live queries (dexie-react-hooks) and tests. Components reach them
 // through hooks, never Dexie itself.
+import { Dexie } from "dexie";
 import type { ChecklistTemplateView } from "../../shared/schemas/checklists";
 import {
   fileKey,
@@ -137,4 +138,16 @@ export async function findChecklistRun(
 ): Promise<LocalChecklistRun | null> {
   const run = await db.checklistRuns.get(runId);
   return run !== undefined && run.campaignId === campaignId ? run : null;
+}
+
+/** How many files wait to be sent and when the oldest was kept, read from an index (no bytes). */
+export async function waitingFiles(
+  db: EquipotDb,
+): Promise<{ count: number; oldestAt: string | null }> {
+  const keys = await db.files
+    .where("[state+addedAt]")
+    .between(["waiting", Dexie.minKey], ["waiting", Dexie.maxKey])
+    .keys();
+  const first = keys[0] as [string, string] | undefined;
+  return { count: keys.length, oldestAt: first?.[1] ?? null };
 }

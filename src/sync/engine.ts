@@ -4,6 +4,7 @@
 import { defaultPullPage, protocolVersion } from "../../shared/sync/protocol";
 import type { EquipotDb, OutboxEntry } from "../db/database";
 import { cursorKey, ensureClientId, readMeta, writeMeta } from "../db/meta";
+import { waitingFiles } from "../db/queries";
 import { applyPulledPage } from "./apply-pull";
 import { uploadFiles } from "./upload-files";
 import { SyncError, type SyncTransport } from "./transport";
@@ -74,14 +75,12 @@ export function createSyncEngine(options: SyncEngineOptions) {
   async function refreshCounts(): Promise<void> {
     const pending = await db.outbox.count();
     const oldest = await db.outbox.orderBy("mutationId").first();
-    const waiting = await db.files.where("state").equals("waiting").toArray();
+    const files = await waitingFiles(db);
     const lastSuccessAt = await readMeta<string | null>(db, lastSuccessKey, null);
-    const times = [oldest?.createdAt, ...waiting.map((f) => f.addedAt)].filter(
-      (t): t is string => t !== undefined,
-    );
+    const times = [oldest?.createdAt, files.oldestAt].filter((t): t is string => !!t);
     setStatus({
       pending,
-      pendingFiles: waiting.length,
+      pendingFiles: files.count,
       oldestPendingAt: times.sort()[0] ?? null,
       lastSuccessAt,
     });

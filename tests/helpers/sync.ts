@@ -1,6 +1,8 @@
 // Small builders for sync tests: a client that numbers its own mutations like a tablet does.
 import request from "supertest";
 import type { Express } from "express";
+import type { Db } from "../../server/db/client";
+import { campaigns, sites } from "../../server/db/schema";
 import {
   protocolVersion,
   type MutationName,
@@ -82,3 +84,20 @@ export const newSite = (overrides: Record<string, unknown> = {}) => ({
   notes: "",
   ...overrides,
 });
+
+/** Another campaign with one site in it, for tests that nothing crosses between campaigns. */
+export async function foreignCampaignWithSite(db: Db, label: string) {
+  const [other] = await db
+    .insert(campaigns)
+    .values({ name: `Campaign ${label}`, description: `${label.toLowerCase()}-secret` })
+    .returning();
+  if (!other) throw new Error("the other campaign was not created");
+  const siteId = crypto.randomUUID();
+  await db.insert(sites).values({
+    ...newSite({ id: siteId, name: `${label}-only site` }),
+    kind: "depot",
+    campaignId: other.id,
+    changeSeq: 1,
+  });
+  return { campaignId: other.id, siteId };
+}

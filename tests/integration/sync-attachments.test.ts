@@ -4,8 +4,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import request from "supertest";
 import { eq } from "drizzle-orm";
 import { createTestContext, signInAs, type TestContext } from "../helpers/app";
-import { newSite, pullAll, pushAs, syncClient } from "../helpers/sync";
-import { attachmentLinks, campaigns, sites } from "../../server/db/schema";
+import { foreignCampaignWithSite, newSite, pullAll, pushAs, syncClient } from "../helpers/sync";
+import { attachmentLinks } from "../../server/db/schema";
 import { protocolVersion, type PullResponse } from "../../shared/sync/protocol";
 
 let ctx: TestContext;
@@ -36,17 +36,7 @@ beforeAll(async () => {
   ctx = await createTestContext();
   const field = await signInAs(ctx.app, "field");
   campaignId = field.memberships[0]?.campaignId ?? "";
-  const [other] = await ctx.database.db
-    .insert(campaigns)
-    .values({ name: "Campaign C", description: "c-secret" })
-    .returning();
-  foreignSiteId = crypto.randomUUID();
-  await ctx.database.db.insert(sites).values({
-    ...newSite({ id: foreignSiteId, name: "C-only site" }),
-    kind: "depot",
-    campaignId: other?.id ?? "",
-    changeSeq: 1,
-  });
+  ({ siteId: foreignSiteId } = await foreignCampaignWithSite(ctx.database.db, "C"));
 });
 afterAll(async () => {
   await ctx.close();

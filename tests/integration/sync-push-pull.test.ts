@@ -2,8 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import request from "supertest";
 import { and, eq } from "drizzle-orm";
 import { createTestContext, signInAs, type TestContext } from "../helpers/app";
-import { newSite, pullAll, pushAs, syncClient } from "../helpers/sync";
-import { campaigns, memberships, sites, syncRejections, users } from "../../server/db/schema";
+import { foreignCampaignWithSite, newSite, pullAll, pushAs, syncClient } from "../helpers/sync";
+import { memberships, sites, syncRejections, users } from "../../server/db/schema";
 import { protocolVersion } from "../../shared/sync/protocol";
 
 let ctx: TestContext;
@@ -15,18 +15,10 @@ beforeAll(async () => {
   ctx = await createTestContext();
   const field = await signInAs(ctx.app, "field");
   campaignId = field.memberships[0]?.campaignId ?? "";
-  const [other] = await ctx.database.db
-    .insert(campaigns)
-    .values({ name: "Campaign B", description: "b-secret" })
-    .returning();
-  otherCampaignId = other?.id ?? "";
-  foreignSiteId = crypto.randomUUID();
-  await ctx.database.db.insert(sites).values({
-    ...newSite({ id: foreignSiteId, name: "B-only site" }),
-    kind: "depot",
-    campaignId: otherCampaignId,
-    changeSeq: 1,
-  });
+  ({ campaignId: otherCampaignId, siteId: foreignSiteId } = await foreignCampaignWithSite(
+    ctx.database.db,
+    "B",
+  ));
 });
 afterAll(async () => {
   await ctx.close();

@@ -137,7 +137,7 @@ describe("conflicts and recovery", () => {
       });
     expect((await listRecovery(db, campaignId)).map((e) => e.mutationId)).toEqual([7, 3]);
     const file = await exportRecovery(db, campaignId);
-    expect(file).toMatchObject({ kind: "equipot-recovery", clientId, localSchemaVersion: 3 });
+    expect(file).toMatchObject({ kind: "equipot-recovery", clientId, localSchemaVersion: 4 });
     expect(file.entries.map((e) => e.mutationId)).toEqual([3, 7]);
     expect(file.entries[0]?.reason).toBe("Your role may not change sites");
   });
