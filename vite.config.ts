@@ -73,6 +73,8 @@ export default defineConfig({
               name: "react",
               test: /node_modules[\\/](react|react-dom|scheduler|react-router)[\\/]/,
             },
+            // Loaded on demand by the temperature chart: keep it out of the catch-all group.
+            { name: "uplot", test: /node_modules[\\/]uplot[\\/]/ },
             { name: "vendor", test: /node_modules[\\/]/ },
           ],
         },

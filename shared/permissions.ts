@@ -11,6 +11,9 @@ export const actions = [
   "invite.create",
   "attachment.write",
   "checklist.record",
+  "entry.record",
+  "levelling.record",
+  "checklist.template.write",
 ] as const;
 export type Action = (typeof actions)[number];
 
@@ -24,6 +27,12 @@ const table: Record<Action, readonly Role[]> = {
   "attachment.write": ["field", "logistics", "geodesist", "admin"],
   // The crew works through checklists; an administrator may stand in (DESIGN.md §6).
   "checklist.record": ["field", "admin"],
+  // Shock and temperature readings are taken by the crew and, at the depot, by logistics.
+  "entry.record": ["field", "logistics", "admin"],
+  // Spirit levelling is done by the crew or the geodesist.
+  "levelling.record": ["field", "geodesist", "admin"],
+  // Templates are kept by administrators, in the office (DESIGN.md §6).
+  "checklist.template.write": ["admin"],
 };
 
 export function can(role: Role | undefined | null, action: Action): boolean {

@@ -20,6 +20,8 @@ import {
 import { roles } from "../../shared/permissions";
 import { attachmentSubjectKinds } from "../../shared/schemas/attachments";
 import { checklistPurposes } from "../../shared/schemas/checklists";
+import { fieldEntryKinds } from "../../shared/schemas/field-entries";
+import { levellingRuns } from "../../shared/schemas/levelling";
 import { siteKinds } from "../../shared/schemas/sites";
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
@@ -404,4 +406,93 @@ export const benchmarks = pgTable(
     deletedAt: timestamp("deleted_at", { withTimezone: true }),
   },
   (t) => [index("benchmarks_change_idx").on(t.campaignId, t.changeSeq)],
+);
+
+export const fieldEntryKindEnum = pgEnum("field_entry_kind", fieldEntryKinds);
+
+/**
+ * Append-only: what the crew recorded about a crate or the site, with its author and time. `data`
+ * holds the kind's fields as validated (shared/schemas/field-entries.ts); `flags` what the server
+ * concluded against the crate's limits when the entry arrived.
+ */
+export const fieldEntries = pgTable(
+  "field_entries",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: campaignRef(),
+    siteId: uuid("site_id")
+      .notNull()
+      .references(() => sites.id),
+    crateId: uuid("crate_id").references(() => crates.id),
+    kind: fieldEntryKindEnum("kind").notNull(),
+    observedAt: timestamp("observed_at", { withTimezone: true }).notNull(),
+    note: text("note").notNull().default(""),
+    data: jsonb("data").notNull(),
+    exceeded: boolean("exceeded").notNull(),
+    summary: text("summary").notNull(),
+    recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull(),
+    recordedBy: userRef("recorded_by"),
+    changeSeq: changeSeq(),
+  },
+  (t) => [
+    index("field_entries_change_idx").on(t.campaignId, t.changeSeq),
+    index("field_entries_site_idx").on(t.campaignId, t.siteId),
+    index("field_entries_crate_idx").on(t.crateId),
+  ],
+);
+
+export const levellingRunEnum = pgEnum("levelling_run", levellingRuns);
+
+/** A levelling section between two marks, levelled forward and back; closed once. */
+export const levellingSections = pgTable(
+  "levelling_sections",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: campaignRef(),
+    siteId: uuid("site_id")
+      .notNull()
+      .references(() => sites.id),
+    fromMark: text("from_mark").notNull(),
+    toMark: text("to_mark").notNull(),
+    classId: text("class_id").notNull(),
+    instrument: text("instrument").notNull().default(""),
+    openedAt: timestamp("opened_at", { withTimezone: true }).notNull(),
+    openedBy: userRef("opened_by"),
+    closedAt: timestamp("closed_at", { withTimezone: true }),
+    closedBy: userRef("closed_by"),
+    closeNote: text("close_note").notNull().default(""),
+    /** The misclosure and its tolerance as computed at closing (shared/levelling-book.ts). */
+    closure: jsonb("closure"),
+    changeSeq: changeSeq(),
+  },
+  (t) => [
+    index("levelling_sections_change_idx").on(t.campaignId, t.changeSeq),
+    index("levelling_sections_site_idx").on(t.campaignId, t.siteId),
+  ],
+);
+
+/** Append-only: one instrument setup as read; the latest per run and number counts. */
+export const levellingSetups = pgTable(
+  "levelling_setups",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: campaignRef(),
+    sectionId: uuid("section_id")
+      .notNull()
+      .references(() => levellingSections.id),
+    run: levellingRunEnum("run").notNull(),
+    number: integer("number").notNull(),
+    backsightM: doublePrecision("backsight_m").notNull(),
+    foresightM: doublePrecision("foresight_m").notNull(),
+    backsightDistanceM: doublePrecision("backsight_distance_m").notNull(),
+    foresightDistanceM: doublePrecision("foresight_distance_m").notNull(),
+    note: text("note").notNull().default(""),
+    recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull(),
+    recordedBy: userRef("recorded_by"),
+    changeSeq: changeSeq(),
+  },
+  (t) => [
+    index("levelling_setups_change_idx").on(t.campaignId, t.changeSeq),
+    index("levelling_setups_section_idx").on(t.sectionId),
+  ],
 );

@@ -37,7 +37,9 @@ export const presentRun = (row: ChecklistRunRow): ChecklistRunView => ({
   signOffNote: row.signOffNote,
 });
 
-export const presentResult = (row: ChecklistResultRow): ChecklistResultView => ({
+export const presentResult = (
+  row: ChecklistResultRow & { recordedByName?: string | null },
+): ChecklistResultView => ({
   id: row.id,
   campaignId: row.campaignId,
   runId: row.runId,
@@ -47,4 +49,5 @@ export const presentResult = (row: ChecklistResultRow): ChecklistResultView => (
   note: row.note,
   recordedAt: row.recordedAt.toISOString(),
   recordedBy: row.recordedBy,
+  recordedByName: row.recordedByName ?? null,
 });

@@ -92,6 +92,8 @@ export async function deleteSite(db: Db, scope: Scope, id: string): Promise<void
       updatedAt: now,
       updatedBy: scope.userId,
       version: current.version + 1,
+      // A new position, so tablets pull the tombstone.
+      changeSeq: await nextChangeSeq(tx, scope.campaignId),
     });
     await recordAudit(tx, {
       ...scope,

@@ -45,7 +45,12 @@ export const attachmentResponse = z.object({ attachment: attachmentView });
 export type AttachmentResponse = z.infer<typeof attachmentResponse>;
 
 /** What a photo or file can be attached to; later entities add their kind here. */
-export const attachmentSubjectKinds = ["site", "checklistRun"] as const;
+export const attachmentSubjectKinds = [
+  "site",
+  "checklistRun",
+  "fieldEntry",
+  "levellingSection",
+] as const;
 export const attachmentSubjectKind = z.enum(attachmentSubjectKinds);
 export type AttachmentSubjectKind = z.infer<typeof attachmentSubjectKind>;
 

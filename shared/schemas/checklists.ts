@@ -185,5 +185,7 @@ export const checklistResultView = z.object({
   note: z.string(),
   recordedAt: z.string(),
   recordedBy: z.uuid().nullable(),
+  /** The author's name as the server knows it (absent from servers before it was added). */
+  recordedByName: z.string().nullable().default(null),
 });
 export type ChecklistResultView = z.infer<typeof checklistResultView>;

@@ -11,6 +11,15 @@ import {
   checklistStartInput,
   checklistTemplateView,
 } from "../schemas/checklists";
+import { crateView } from "../schemas/crates";
+import { fieldEntryInput, fieldEntryView } from "../schemas/field-entries";
+import {
+  levellingCloseInput,
+  levellingOpenInput,
+  levellingSectionView,
+  levellingSetupInput,
+  levellingSetupView,
+} from "../schemas/levelling";
 import { siteCreateInput, sitePatchSchema, siteView } from "../schemas/sites";
 
 export const protocolVersion = 1;
@@ -42,6 +51,12 @@ export const mutationSchemas = {
   "checklist.start": checklistStartInput,
   "checklist.record": checklistRecordInput,
   "checklist.signOff": checklistSignOffInput,
+  // Field entries (shock, temperatures, dew point, observations) are append-only.
+  "entry.add": fieldEntryInput,
+  // A levelling section is opened once and closed once; its setups are append-only.
+  "levelling.open": levellingOpenInput,
+  "levelling.setup": levellingSetupInput,
+  "levelling.close": levellingCloseInput,
 } as const;
 
 export const mutationNames = Object.keys(mutationSchemas) as [
@@ -63,6 +78,10 @@ export const mutationActions: Record<MutationName, Action> = {
   "checklist.start": "checklist.record",
   "checklist.record": "checklist.record",
   "checklist.signOff": "checklist.record",
+  "entry.add": "entry.record",
+  "levelling.open": "levelling.record",
+  "levelling.setup": "levelling.record",
+  "levelling.close": "levelling.record",
 };
 
 export const mutationEnvelope = z.strictObject({
@@ -105,6 +124,10 @@ export const syncEntities = [
   "checklistTemplate",
   "checklistRun",
   "checklistResult",
+  "crate",
+  "fieldEntry",
+  "levellingSection",
+  "levellingSetup",
 ] as const;
 export const syncEntitySchema = z.enum(syncEntities);
 export type SyncEntity = z.infer<typeof syncEntitySchema>;
@@ -155,6 +178,25 @@ export const changeRecord = z.discriminatedUnion("entity", [
     seq: z.number().int(),
     id: z.uuid(),
     data: checklistResultView,
+  }),
+  z.object({ entity: z.literal("crate"), seq: z.number().int(), id: z.uuid(), data: crateView }),
+  z.object({
+    entity: z.literal("fieldEntry"),
+    seq: z.number().int(),
+    id: z.uuid(),
+    data: fieldEntryView,
+  }),
+  z.object({
+    entity: z.literal("levellingSection"),
+    seq: z.number().int(),
+    id: z.uuid(),
+    data: levellingSectionView,
+  }),
+  z.object({
+    entity: z.literal("levellingSetup"),
+    seq: z.number().int(),
+    id: z.uuid(),
+    data: levellingSetupView,
   }),
 ]);
 export type ChangeRecord = z.infer<typeof changeRecord>;

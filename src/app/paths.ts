@@ -11,9 +11,29 @@ export const paths = {
   newSite: (campaignId: string) => `${campaign(campaignId)}/sites/new`,
   editSite: (campaignId: string, siteId: string) =>
     `${campaign(campaignId)}/sites/${encodeURIComponent(siteId)}/edit`,
+  /** The crew's home at a site. */
+  siteBoard: (campaignId: string, siteId: string) =>
+    `${campaign(campaignId)}/sites/${encodeURIComponent(siteId)}`,
+  /** The board of the site chosen on this device, or the choice of one. */
+  board: (campaignId: string) => `${campaign(campaignId)}/board`,
+  newEntry: (campaignId: string, siteId: string, kind: string, runId?: string) =>
+    `${campaign(campaignId)}/sites/${encodeURIComponent(siteId)}/entries/new/${encodeURIComponent(kind)}${
+      runId === undefined ? "" : `?run=${encodeURIComponent(runId)}`
+    }`,
+  entry: (campaignId: string, entryId: string) =>
+    `${campaign(campaignId)}/entries/${encodeURIComponent(entryId)}`,
+  levelling: (campaignId: string, siteId: string) =>
+    `${campaign(campaignId)}/sites/${encodeURIComponent(siteId)}/levelling`,
+  levellingSection: (campaignId: string, sectionId: string) =>
+    `${campaign(campaignId)}/levelling/${encodeURIComponent(sectionId)}`,
+  entryImport: (campaignId: string, siteId: string, kind: "shock-log" | "temperatures") =>
+    `${campaign(campaignId)}/sites/${encodeURIComponent(siteId)}/import?kind=${kind}`,
+  temperatures: (campaignId: string, siteId: string) =>
+    `${campaign(campaignId)}/sites/${encodeURIComponent(siteId)}/temperatures`,
   checklistRun: (campaignId: string, runId: string) =>
     `${campaign(campaignId)}/checklists/${encodeURIComponent(runId)}`,
   members: (campaignId: string) => `${campaign(campaignId)}/members`,
+  checklistTemplates: (campaignId: string) => `${campaign(campaignId)}/checklist-templates`,
   conflicts: (campaignId: string) => `${campaign(campaignId)}/conflicts`,
   device: "/device",
 } as const;

@@ -3,11 +3,13 @@ import { CampaignLayout } from "./layouts/campaign-layout";
 import { PublicLayout } from "./layouts/public-layout";
 import { SignedInLayout } from "./layouts/signed-in-layout";
 import { paths } from "./paths";
+import { useSession } from "../lib/use-session";
 import { CampaignsRoute } from "./routes/campaigns-route";
 import { ConflictsRoute } from "./routes/conflicts-route";
 import { DeviceRoute } from "./routes/device-route";
 import { InviteRoute } from "./routes/invite-route";
 import { MembersRoute } from "./routes/members-route";
+import { ChecklistTemplatesRoute } from "./routes/checklist-templates-route";
 import { NotFoundRoute } from "./routes/not-found-route";
 import { RouteError } from "./routes/route-error";
 import { SignInRoute } from "./routes/sign-in-route";
@@ -15,10 +17,25 @@ import { SiteEditRoute } from "./routes/site-edit-route";
 import { ChecklistRunRoute } from "./routes/checklist-run-route";
 import { SiteNewRoute } from "./routes/site-new-route";
 import { SitesRoute } from "./routes/sites-route";
+import { LevellingRoute } from "./routes/levelling-route";
+import { LevellingSectionRoute } from "./routes/levelling-section-route";
+import { BoardRoute, SiteBoardRoute } from "./routes/site-board-route";
+import { EntryNewRoute } from "./routes/entry-new-route";
+import { EntryRoute } from "./routes/entry-route";
+import { EntryImportRoute } from "./routes/entry-import-route";
+import { TemperaturesRoute } from "./routes/temperatures-route";
 
+/** The crew starts at their site's board; everyone else at the sites. */
 function CampaignIndex() {
   const { campaignId = "" } = useParams();
-  return <Navigate to={paths.sites(campaignId)} replace />;
+  const session = useSession();
+  const role =
+    session.status === "signed-in"
+      ? session.memberships.find((m) => m.campaignId === campaignId)?.role
+      : undefined;
+  return (
+    <Navigate to={role === "field" ? paths.board(campaignId) : paths.sites(campaignId)} replace />
+  );
 }
 
 export const router = createBrowserRouter([
@@ -46,8 +63,17 @@ export const router = createBrowserRouter([
               { path: "sites", element: <SitesRoute /> },
               { path: "sites/new", element: <SiteNewRoute /> },
               { path: "sites/:siteId/edit", element: <SiteEditRoute /> },
+              { path: "board", element: <BoardRoute /> },
+              { path: "sites/:siteId", element: <SiteBoardRoute /> },
+              { path: "sites/:siteId/entries/new/:kind", element: <EntryNewRoute /> },
+              { path: "entries/:entryId", element: <EntryRoute /> },
+              { path: "sites/:siteId/import", element: <EntryImportRoute /> },
+              { path: "sites/:siteId/temperatures", element: <TemperaturesRoute /> },
               { path: "checklists/:runId", element: <ChecklistRunRoute /> },
+              { path: "sites/:siteId/levelling", element: <LevellingRoute /> },
+              { path: "levelling/:sectionId", element: <LevellingSectionRoute /> },
               { path: "members", element: <MembersRoute /> },
+              { path: "checklist-templates", element: <ChecklistTemplatesRoute /> },
               { path: "conflicts", element: <ConflictsRoute /> },
             ],
           },

@@ -2,6 +2,8 @@
 // one tablet never share a working copy or a client id.
 import { useEffect, useState, type ReactNode } from "react";
 import { openDatabase } from "../db/database";
+import { writeMeta } from "../db/meta";
+import { authorNameKey } from "../db/outbox";
 import { getHealth } from "../features/health/api/get-health";
 import { apiRequest } from "../lib/api";
 import { askPersistence, refreshEstimate } from "../lib/device-storage";
@@ -50,6 +52,9 @@ export function SyncProvider({ userId, children }: { userId: string; children: R
   const [local] = useState(() => createLocalSync(userId));
 
   useEffect(() => {
+    const session = getSession();
+    if (session.status === "signed-in" && session.user.id === userId)
+      void writeMeta(local.db, authorNameKey, session.user.name);
     void local.engine.refreshCounts();
     local.scheduler.start();
     void askPersistence().then(refreshEstimate);
@@ -62,7 +67,7 @@ export function SyncProvider({ userId, children }: { userId: string; children: R
       // Reopens by itself if the provider mounts again (React's development double mount).
       local.db.close({ disableAutoOpen: false });
     };
-  }, [local]);
+  }, [local, userId]);
 
   return <LocalSyncContext.Provider value={local}>{children}</LocalSyncContext.Provider>;
 }

@@ -2,6 +2,7 @@
 // one transaction with its outbox entry (outbox.ts); the same checks as the server run first, so a
 // mistake shows at once on the tablet instead of at the next sync.
 import { checkResult } from "../../shared/checklists";
+import { dewPointClears } from "../../shared/field-entries";
 import {
   checklistRecordInput,
   checklistSignOffInput,
@@ -10,7 +11,7 @@ import {
 } from "../../shared/schemas/checklists";
 import type { RunSnapshot } from "./checklist-view";
 import type { EquipotDb, LocalChecklistResult } from "./database";
-import { recordMutation } from "./outbox";
+import { readAuthorName, recordMutation } from "./outbox";
 
 export async function startChecklistLocally(
   db: EquipotDb,
@@ -84,7 +85,7 @@ export async function recordResultLocally(
     name: "checklist.record",
     entityId: id,
     args,
-    snapshot: { outOfRange: checked.outOfRange },
+    snapshot: { outOfRange: checked.outOfRange, recordedByName: await readAuthorName(db) },
   });
   return { id, outOfRange: checked.outOfRange };
 }
@@ -96,10 +97,26 @@ export async function signOffLocally(db: EquipotDb, campaignId: string, runId: s
   const missing = run.items.filter((i) => i.required && !answered.has(i.id)).map((i) => i.label);
   if (missing.length > 0)
     throw new Error(`Not signed off: no result yet for ${missing.join("; ")}`);
+  if (run.purpose === "unpacking" && !(await dewPointCleared(db, run)))
+    throw new Error(dewPointGate);
   const args = checklistSignOffInput.parse({
     id: runId,
     signedOffAt: new Date().toISOString(),
     note,
   });
   await recordMutation(db, { campaignId, name: "checklist.signOff", entityId: runId, args });
+}
+
+export const dewPointGate =
+  "Not signed off: the dew-point check must pass, or be overridden with a reason, before the crate is unpacked";
+
+/** Whether a dew-point check recorded for this run passed or was overridden with a reason. */
+export async function dewPointCleared(
+  db: EquipotDb,
+  run: { id: string; siteId: string },
+): Promise<boolean> {
+  const entries = await db.fieldEntries.where("siteId").equals(run.siteId).toArray();
+  return entries.some(
+    (e) => e.data.kind === "dew-point" && e.data.runId === run.id && dewPointClears(e.data),
+  );
 }

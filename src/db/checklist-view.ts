@@ -56,7 +56,10 @@ function applyResult(record: ChecklistResultView | undefined, entry: OutboxEntry
     note?: string;
     recordedAt: string;
   };
-  const { outOfRange } = entry.snapshot as { outOfRange: boolean };
+  const { outOfRange, recordedByName = null } = entry.snapshot as {
+    outOfRange: boolean;
+    recordedByName?: string | null;
+  };
   return {
     id: args.id,
     campaignId: entry.campaignId,
@@ -67,6 +70,7 @@ function applyResult(record: ChecklistResultView | undefined, entry: OutboxEntry
     note: args.note ?? "",
     recordedAt: args.recordedAt,
     recordedBy: null,
+    recordedByName,
   } satisfies ChecklistResultView;
 }
 

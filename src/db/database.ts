@@ -8,6 +8,9 @@ import type {
   ChecklistRunView,
   ChecklistTemplateView,
 } from "../../shared/schemas/checklists";
+import type { CrateView } from "../../shared/schemas/crates";
+import type { FieldEntryView } from "../../shared/schemas/field-entries";
+import type { LevellingSectionView, LevellingSetupView } from "../../shared/schemas/levelling";
 import type { SiteView } from "../../shared/schemas/sites";
 import type { ConflictView, MutationName, MutationResult } from "../../shared/sync/protocol";
 
@@ -93,7 +96,26 @@ export type EquipotDb = Dexie & {
   serverChecklistResults: EntityTable<ChecklistResultView, "id">;
   checklistRuns: EntityTable<LocalChecklistRun, "id">;
   checklistResults: EntityTable<LocalChecklistResult, "id">;
+  crates: EntityTable<CrateView, "id">;
+  serverFieldEntries: EntityTable<FieldEntryView, "id">;
+  fieldEntries: EntityTable<LocalFieldEntry, "id">;
+  serverLevellingSections: EntityTable<LevellingSectionView, "id">;
+  levellingSections: EntityTable<LocalLevellingSection, "id">;
+  serverLevellingSetups: EntityTable<LevellingSetupView, "id">;
+  levellingSetups: EntityTable<LocalLevellingSetup, "id">;
 };
+
+export interface LocalFieldEntry extends FieldEntryView {
+  pending: boolean;
+}
+
+export interface LocalLevellingSection extends LevellingSectionView {
+  pending: boolean;
+}
+
+export interface LocalLevellingSetup extends LevellingSetupView {
+  pending: boolean;
+}
 
 export interface LocalChecklistRun extends ChecklistRunView {
   pending: boolean;
@@ -142,6 +164,19 @@ export const schemaHistory: readonly { version: number; stores: Record<string, s
       version: 4,
       // Waiting files by age from the index alone, without reading their bytes.
       stores: { files: "key, campaignId, state, [state+addedAt]" },
+    },
+    {
+      version: 5,
+      // Crates (read-only here for now), field entries and the levelling field book.
+      stores: {
+        crates: "id, campaignId",
+        serverFieldEntries: "id, campaignId, siteId",
+        fieldEntries: "id, campaignId, siteId, crateId",
+        serverLevellingSections: "id, campaignId, siteId",
+        levellingSections: "id, campaignId, siteId",
+        serverLevellingSetups: "id, campaignId, sectionId",
+        levellingSetups: "id, campaignId, sectionId",
+      },
     },
   ];
 

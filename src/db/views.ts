@@ -4,6 +4,8 @@
 import { rebuildAttachmentViews } from "./attachment-view";
 import { rebuildChecklistResultViews, rebuildChecklistRunViews } from "./checklist-view";
 import type { EquipotDb } from "./database";
+import { rebuildFieldEntryViews } from "./field-entry-view";
+import { rebuildLevellingSectionViews, rebuildLevellingSetupViews } from "./levelling-view";
 import { rebuildSiteViews } from "./site-view";
 import type { ViewKind } from "./working-copy";
 
@@ -21,6 +23,13 @@ export const viewTables = (db: EquipotDb) => [
   db.checklistRuns,
   db.serverChecklistResults,
   db.checklistResults,
+  db.crates,
+  db.serverFieldEntries,
+  db.fieldEntries,
+  db.serverLevellingSections,
+  db.levellingSections,
+  db.serverLevellingSetups,
+  db.levellingSetups,
 ];
 
 export async function rebuildViews(db: EquipotDb, touched: Touched): Promise<void> {
@@ -28,4 +37,7 @@ export async function rebuildViews(db: EquipotDb, touched: Touched): Promise<voi
   await rebuildAttachmentViews(db, touched.attachments ?? []);
   await rebuildChecklistRunViews(db, touched.checklistRuns ?? []);
   await rebuildChecklistResultViews(db, touched.checklistResults ?? []);
+  await rebuildFieldEntryViews(db, touched.fieldEntries ?? []);
+  await rebuildLevellingSectionViews(db, touched.levellingSections ?? []);
+  await rebuildLevellingSetupViews(db, touched.levellingSetups ?? []);
 }

@@ -4,13 +4,23 @@ import type { EntityTable, IDType } from "dexie";
 import type { MutationName } from "../../shared/sync/protocol";
 import type { EquipotDb, OutboxEntry } from "./database";
 
-export type ViewKind = "sites" | "attachments" | "checklistRuns" | "checklistResults";
+export type ViewKind =
+  | "sites"
+  | "attachments"
+  | "checklistRuns"
+  | "checklistResults"
+  | "fieldEntries"
+  | "levellingSections"
+  | "levellingSetups";
 
 /** Which working copy a mutation changes (a conflict's choice belongs to its site). */
 export function viewKindOf(name: MutationName): ViewKind {
   if (name.startsWith("attachment.")) return "attachments";
   if (name === "checklist.record") return "checklistResults";
   if (name.startsWith("checklist.")) return "checklistRuns";
+  if (name === "entry.add") return "fieldEntries";
+  if (name === "levelling.setup") return "levellingSetups";
+  if (name.startsWith("levelling.")) return "levellingSections";
   return "sites";
 }
 

@@ -7,7 +7,7 @@ import { ApiError, type ApiErrorCode } from "./api-error";
 import { reportReachable } from "./connectivity";
 import { withWebLock } from "./web-lock";
 
-type Method = "GET" | "POST" | "PATCH" | "DELETE";
+type Method = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
 
 export interface RequestOptions<S extends z.ZodType> {
   method?: Method;

@@ -1,57 +1,70 @@
 // Writes one pulled page into IndexedDB in one transaction: the server's records, the cursor, and
 // the outbox entries the server confirms (lastMutationId) leave the outbox, refused ones go to
 // recovery. Bulk reads and writes only: a page costs a handful of IndexedDB requests.
-import type { AttachmentLinkView } from "../../shared/schemas/attachments";
-import type {
-  ChecklistResultView,
-  ChecklistRunView,
-  ChecklistTemplateView,
-} from "../../shared/schemas/checklists";
-import type { SiteView } from "../../shared/schemas/sites";
-import type { PullResponse } from "../../shared/sync/protocol";
+import type { ChangeRecord, PullResponse } from "../../shared/sync/protocol";
 import type { EquipotDb, LocalConflict, RecoveryEntry } from "../db/database";
 import { cursorKey, writeMeta } from "../db/meta";
-import { rebuildViews, viewTables } from "../db/views";
-import { viewKindOf } from "../db/working-copy";
+import { rebuildViews, viewTables, type Touched } from "../db/views";
+import { viewKindOf, type ViewKind } from "../db/working-copy";
+
+type Entity = ChangeRecord["entity"];
+type DataOf<E extends Entity> = Extract<ChangeRecord, { entity: E }>["data"];
+type Pulled = { [E in Entity]: DataOf<E>[] };
+
+/** The working copy each pulled entity feeds, when it has one. */
+const viewOf: Partial<Record<Entity, ViewKind>> = {
+  site: "sites",
+  attachment: "attachments",
+  checklistRun: "checklistRuns",
+  checklistResult: "checklistResults",
+  fieldEntry: "fieldEntries",
+  levellingSection: "levellingSections",
+  levellingSetup: "levellingSetups",
+};
 
 export async function applyPulledPage(
   db: EquipotDb,
   campaignId: string,
   page: PullResponse,
 ): Promise<void> {
-  const sites: SiteView[] = [];
-  const links: AttachmentLinkView[] = [];
-  const conflicts: LocalConflict[] = [];
-  const templates: ChecklistTemplateView[] = [];
-  const runs: ChecklistRunView[] = [];
-  const results: ChecklistResultView[] = [];
-  for (const change of page.changes) {
-    if (change.entity === "site") sites.push(change.data);
-    else if (change.entity === "attachment") links.push(change.data);
-    else if (change.entity === "conflict") conflicts.push({ ...change.data, campaignId });
-    else if (change.entity === "checklistTemplate") templates.push(change.data);
-    else if (change.entity === "checklistRun") runs.push(change.data);
-    else results.push(change.data);
-  }
-  const touched = {
-    sites: new Set(sites.map((s) => s.id)),
-    attachments: new Set(links.map((l) => l.id)),
-    checklistRuns: new Set(runs.map((r) => r.id)),
-    checklistResults: new Set(results.map((r) => r.id)),
+  const pulled: Pulled = {
+    site: [],
+    conflict: [],
+    attachment: [],
+    checklistTemplate: [],
+    checklistRun: [],
+    checklistResult: [],
+    crate: [],
+    fieldEntry: [],
+    levellingSection: [],
+    levellingSetup: [],
   };
-  const checklistTables = [
-    db.checklistTemplates,
-    db.serverChecklistRuns,
-    db.serverChecklistResults,
-  ];
-  const tables = [db.meta, db.conflicts, db.recovery, ...checklistTables, ...viewTables(db)];
+  // The union's data follows its entity; TypeScript cannot pair them through the index.
+  for (const change of page.changes) (pulled[change.entity] as unknown[]).push(change.data);
+  const touched: Record<ViewKind, Set<string>> = {
+    sites: new Set(),
+    attachments: new Set(),
+    checklistRuns: new Set(),
+    checklistResults: new Set(),
+    fieldEntries: new Set(),
+    levellingSections: new Set(),
+    levellingSetups: new Set(),
+  };
+  for (const [entity, kind] of Object.entries(viewOf) as [Entity, ViewKind][])
+    for (const record of pulled[entity]) touched[kind].add(record.id);
+  const conflicts: LocalConflict[] = pulled.conflict.map((c) => ({ ...c, campaignId }));
+  const tables = [db.meta, db.conflicts, db.recovery, db.checklistTemplates, ...viewTables(db)];
   await db.transaction("rw", tables, async () => {
-    await db.serverSites.bulkPut(sites);
-    await db.serverAttachments.bulkPut(links);
+    await db.serverSites.bulkPut(pulled.site);
+    await db.serverAttachments.bulkPut(pulled.attachment);
     await db.conflicts.bulkPut(conflicts);
-    await db.checklistTemplates.bulkPut(templates);
-    await db.serverChecklistRuns.bulkPut(runs);
-    await db.serverChecklistResults.bulkPut(results);
+    await db.checklistTemplates.bulkPut(pulled.checklistTemplate);
+    await db.serverChecklistRuns.bulkPut(pulled.checklistRun);
+    await db.serverChecklistResults.bulkPut(pulled.checklistResult);
+    await db.crates.bulkPut(pulled.crate);
+    await db.serverFieldEntries.bulkPut(pulled.fieldEntry);
+    await db.serverLevellingSections.bulkPut(pulled.levellingSection);
+    await db.serverLevellingSetups.bulkPut(pulled.levellingSetup);
     // Confirm only on the last page: then every change of a confirmed mutation is already here,
     // so its record never drops out of the working copy between pages.
     if (page.lastMutationId !== null && !page.hasMore) {
@@ -77,6 +90,6 @@ export async function applyPulledPage(
       await db.outbox.bulkDelete(confirmed.map((e) => e.mutationId));
     }
     await writeMeta(db, cursorKey(campaignId), page.cursor);
-    await rebuildViews(db, touched);
+    await rebuildViews(db, touched satisfies Touched);
   });
 }

@@ -38,14 +38,27 @@ export interface SyncEngineOptions {
 
 const lastSuccessKey = "lastSyncSuccessAt";
 
-/** Consecutive outbox entries of one campaign: one push each, so mutation ids stay contiguous. */
-function batches(entries: OutboxEntry[], size: number): OutboxEntry[][] {
+/** Arguments per push, in JSON characters: well under the server's 1 MB body limit. */
+export const pushBudgetChars = 600_000;
+
+/**
+ * Consecutive outbox entries of one campaign: one push each, so mutation ids stay contiguous. A
+ * batch also ends before its arguments outgrow the budget (imported logger files are large).
+ */
+export function batches(entries: OutboxEntry[], size: number): OutboxEntry[][] {
   const out: OutboxEntry[][] = [];
+  let chars = 0;
   for (const entry of entries) {
     const current = out.at(-1);
-    if (current && current.length < size && current[0]?.campaignId === entry.campaignId)
+    const length = JSON.stringify(entry.args).length;
+    const fits = current && current.length < size && chars + length <= pushBudgetChars;
+    if (fits && current[0]?.campaignId === entry.campaignId) {
       current.push(entry);
-    else out.push([entry]);
+      chars += length;
+    } else {
+      out.push([entry]);
+      chars = length;
+    }
   }
   return out;
 }

@@ -43,7 +43,7 @@ test("the arrival checklist worked offline, with a number out of range, reaches 
   await readyForOffline(page, server.baseUrl, "field");
 
   await profile.context.setOffline(true);
-  await page.getByRole("link", { name: "Edit Kestrel Ridge hut" }).click();
+  await page.getByRole("link", { name: "Kestrel Ridge hut", exact: true }).click();
   await page.getByRole("button", { name: "Arrival at the site" }).click();
   await page.getByRole("heading", { name: "Arrival at the site", level: 1 }).waitFor();
   expect(await item(page, "Weather checked").innerText()).toContain(

@@ -28,13 +28,18 @@ export async function openDemoSites(page: Page, baseUrl: string, role: DemoRole)
   await signIn(page, baseUrl, demoEmail(role));
   await page.getByRole("heading", { name: "Choose a campaign" }).waitFor();
   await page.getByRole("link", { name: new RegExp(demoCampaignName) }).click();
+  // The crew's campaign opens on the site board; the sites are one tab away.
+  await page
+    .getByRole("navigation", { name: "Campaign" })
+    .getByRole("link", { name: "Sites", exact: true })
+    .click();
   await page.getByRole("heading", { name: "Sites", exact: true }).waitFor();
   await page.getByRole("rowheader", { name: new RegExp(demoSiteNames[0]) }).waitFor();
 }
 
 /** The names in the site table, in the order shown. */
 export async function listedSiteNames(page: Page): Promise<string[]> {
-  const cells = page.locator("tbody th[scope=row] > span:first-child");
+  const cells = page.locator("tbody th[scope=row] > a:first-child");
   return cells.allInnerTexts();
 }
 

@@ -2,7 +2,7 @@
 import request from "supertest";
 import type { Express } from "express";
 import type { Db } from "../../server/db/client";
-import { campaigns, sites } from "../../server/db/schema";
+import { campaigns, crates, sites } from "../../server/db/schema";
 import {
   protocolVersion,
   type MutationName,
@@ -100,4 +100,26 @@ export async function foreignCampaignWithSite(db: Db, label: string) {
     changeSeq: 1,
   });
   return { campaignId: other.id, siteId };
+}
+
+/** A crate written straight into a campaign (crates are read-only on tablets for now). */
+export async function insertCrate(
+  db: Db,
+  campaignId: string,
+  overrides: Partial<typeof crates.$inferInsert> = {},
+) {
+  const id = crypto.randomUUID();
+  await db.insert(crates).values({
+    id,
+    campaignId,
+    label: "XC-99",
+    contents: "Spare optics",
+    weightKg: 20,
+    maxShockG: 30,
+    temperatureMinC: 10,
+    temperatureMaxC: 30,
+    changeSeq: 1,
+    ...overrides,
+  });
+  return id;
 }

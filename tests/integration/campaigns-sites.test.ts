@@ -4,6 +4,8 @@ import { eq } from "drizzle-orm";
 import { createTestContext, signInAs, type TestContext } from "../helpers/app";
 import { campaigns, memberships, sites, users, auditEvents } from "../../server/db/schema";
 import { hashPassword } from "../../server/services/passwords";
+import { protocolVersion, type PullResponse } from "../../shared/sync/protocol";
+import { pullAll } from "../helpers/sync";
 
 let ctx: TestContext;
 let demoCampaignId: string;
@@ -118,6 +120,7 @@ describe("sites", () => {
       .send({ baseVersion: 1, name: "Lost edit" });
     expect(stale.status).toBe(409);
 
+    const { cursor: cursorBeforeDelete } = await pullAll(ctx.app, token, demoCampaignId);
     expect((await request(ctx.app).delete(`${base}/${id}`).set(auth(token))).status).toBe(204);
     const after = await request(ctx.app).get(base).set(auth(token));
     expect(after.body.sites.map((s: { id: string }) => s.id)).not.toContain(id);
@@ -128,6 +131,14 @@ describe("sites", () => {
       .from(auditEvents)
       .where(eq(auditEvents.entityId, id));
     expect(audit.map((a) => a.action)).toEqual(["create", "update", "delete"]);
+    // The tombstone takes a new change position, so a tablet that pulled before sees it go.
+    const since = await request(ctx.app)
+      .get("/api/sync/pull")
+      .query({ protocolVersion, campaign: demoCampaignId, cursor: cursorBeforeDelete })
+      .set(auth(token));
+    expect(since.status).toBe(200);
+    const tombstone = (since.body as PullResponse).changes.find((c) => c.id === id);
+    expect(tombstone?.data).toMatchObject({ deletedAt: expect.any(String), version: 3 });
   });
 
   it("keeps a client-made id", async () => {

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { createTestContext, signInAs, type TestContext } from "../helpers/app";
 import { pullAll, pushAs, syncClient, type TestSyncClient } from "../helpers/sync";
-import { checklistResults, checklistTemplates, sites } from "../../server/db/schema";
+import { checklistResults, checklistTemplates, sites, users } from "../../server/db/schema";
 import type { ChecklistTemplateView } from "../../shared/schemas/checklists";
 
 let ctx: TestContext;
@@ -120,6 +120,14 @@ describe("checklists through sync", () => {
     });
     const results = changes.filter((c) => c.entity === "checklistResult" && c.data.runId === runId);
     expect(results).toHaveLength(required.length + 1);
+    // Each result carries its author's name, so the tablet can show who recorded it.
+    const [author] = await ctx.database.db
+      .select({ name: users.name })
+      .from(users)
+      .where(eq(users.email, "field@demo.equipot.test"));
+    expect(
+      new Set(results.map((r) => r.entity === "checklistResult" && r.data.recordedByName)),
+    ).toEqual(new Set([author?.name]));
   });
 
   it("keeps a started run's items when the template changes later", async () => {

@@ -1,7 +1,7 @@
 // Checklist templates, runs and results; every query is scoped by campaign.
-import { and, asc, eq, gt } from "drizzle-orm";
+import { and, asc, eq, getTableColumns, gt } from "drizzle-orm";
 import type { Queryable } from "../client";
-import { checklistResults, checklistRuns, checklistTemplates } from "../schema";
+import { checklistResults, checklistRuns, checklistTemplates, users } from "../schema";
 
 export type ChecklistTemplateRow = typeof checklistTemplates.$inferSelect;
 export type ChecklistRunRow = typeof checklistRuns.$inferSelect;
@@ -94,10 +94,17 @@ export const runsAfter: Changes<ChecklistRunRow> = (q, campaignId, cursor, limit
     .orderBy(asc(checklistRuns.changeSeq))
     .limit(limit);
 
-export const resultsAfter: Changes<ChecklistResultRow> = (q, campaignId, cursor, limit) =>
+/** Results with their author's name, for the tablets. */
+export const resultsAfter: Changes<ChecklistResultRow & { recordedByName: string | null }> = (
+  q,
+  campaignId,
+  cursor,
+  limit,
+) =>
   q
-    .select()
+    .select({ ...getTableColumns(checklistResults), recordedByName: users.name })
     .from(checklistResults)
+    .leftJoin(users, eq(users.id, checklistResults.recordedBy))
     .where(and(eq(checklistResults.campaignId, campaignId), gt(checklistResults.changeSeq, cursor)))
     .orderBy(asc(checklistResults.changeSeq))
     .limit(limit);

@@ -8,6 +8,7 @@ import { parseInput } from "../../middleware/validate";
 import { createInvite } from "../../services/invites.service";
 import type { Storage } from "../../storage/storage";
 import { attachmentsRouter } from "../attachments/attachments.router";
+import { checklistTemplatesRouter } from "../checklist-templates/checklist-templates.router";
 import { cratesBenchmarksRouter } from "../crates/crates-benchmarks.router";
 import { sitesRouter } from "../sites/sites.router";
 
@@ -47,5 +48,6 @@ export function campaignsRouter({
   router.use("/:campaignId/sites", sitesRouter(db));
   router.use("/:campaignId", cratesBenchmarksRouter(db));
   router.use("/:campaignId/attachments", attachmentsRouter({ db, storage }));
+  router.use("/:campaignId/checklist-templates", checklistTemplatesRouter(db));
   return router;
 }

@@ -16,11 +16,23 @@ import {
   applyChecklistStart,
 } from "./checklist-mutations";
 import { applyConflictResolve } from "./conflict-mutations";
-import { Rejection, type ApplyContext, type ApplyOutcome, type Settled } from "./context";
+import {
+  Rejection,
+  type ApplyContext,
+  type ApplyOutcome,
+  type Args,
+  type Settled,
+} from "./context";
+import { applyEntryAdd } from "./field-entry-mutations";
+import {
+  applyLevellingClose,
+  applyLevellingOpen,
+  applyLevellingSetup,
+} from "./levelling-mutations";
 import { applySiteCreates, applySiteDelete, applySiteUpdate } from "./site-mutations";
 
 type PushContext = Omit<ApplyContext, "role"> & { role: Role | undefined };
-type SiteCreate = z.output<(typeof mutationSchemas)["site.create"]> | Rejection;
+type SiteCreate = Args<"site.create"> | Rejection;
 
 function parseArgs<S extends z.ZodType>(name: string, schema: S, args: unknown): z.output<S> {
   const parsed = schema.safeParse(args);
@@ -64,7 +76,6 @@ export const applySiteCreateRun = (
     mutations.map((m) => checkSiteCreate(ctx.role, m)),
   );
 
-type Args<N extends MutationName> = z.output<(typeof mutationSchemas)[N]>;
 type Applier<N extends MutationName> = (ctx: ApplyContext, args: Args<N>) => Promise<ApplyOutcome>;
 
 /** One apply function per mutation kind (creates go through the run above, even alone). */
@@ -77,6 +88,10 @@ const appliers: { [N in Exclude<MutationName, "site.create">]: Applier<N> } = {
   "checklist.start": applyChecklistStart,
   "checklist.record": applyChecklistRecord,
   "checklist.signOff": applyChecklistSignOff,
+  "entry.add": applyEntryAdd,
+  "levelling.open": applyLevellingOpen,
+  "levelling.setup": applyLevellingSetup,
+  "levelling.close": applyLevellingClose,
 };
 
 function applyOne<N extends Exclude<MutationName, "site.create">>(

@@ -1,8 +1,6 @@
 // Attachment links are append-only: one mutation adds a link, one removes it. They never conflict;
 // a second remove is harmless. The bytes travel separately (PUT …/attachments/:sha256).
-import type { z } from "zod";
 import type { AttachmentSubjectKind } from "../../../shared/schemas/attachments";
-import type { mutationSchemas } from "../../../shared/sync/protocol";
 import { nextChangeSeq } from "../../db/change-seq";
 import {
   findAttachmentLinkAnywhere,
@@ -10,13 +8,12 @@ import {
   insertAttachmentLink,
   updateAttachmentLink,
 } from "../../db/repositories/attachment-links";
-import { recordAudit } from "../../db/repositories/audit";
 import { findRunForUpdate } from "../../db/repositories/checklists";
+import { findEntry } from "../../db/repositories/field-entries";
+import { findSection } from "../../db/repositories/levelling";
 import { findSiteAnywhere } from "../../db/repositories/sites";
 import { presentAttachmentLink } from "../../presenters/attachment-link";
-import { Rejection, type ApplyContext, type ApplyOutcome } from "./context";
-
-type Args<N extends keyof typeof mutationSchemas> = z.output<(typeof mutationSchemas)[N]>;
+import { auditChange, Rejection, type ApplyContext, type ApplyOutcome, type Args } from "./context";
 
 /** The record a file is attached to must be in the same campaign (a deleted one still counts). */
 const subjectFinders: Record<
@@ -26,19 +23,18 @@ const subjectFinders: Record<
   site: async (ctx, id) => (await findSiteAnywhere(ctx.tx, id))?.campaignId === ctx.campaignId,
   checklistRun: async (ctx, id) =>
     (await findRunForUpdate(ctx.tx, ctx.campaignId, id)) !== undefined,
+  fieldEntry: async (ctx, id) => (await findEntry(ctx.tx, ctx.campaignId, id)) !== undefined,
+  levellingSection: async (ctx, id) =>
+    (await findSection(ctx.tx, ctx.campaignId, id)) !== undefined,
 };
 
-const audit = (ctx: ApplyContext, action: string, id: string, before: unknown, after: unknown) =>
-  recordAudit(ctx.tx, {
-    campaignId: ctx.campaignId,
-    userId: ctx.userId,
-    clientId: ctx.clientId,
-    action,
-    entity: "attachment",
-    entityId: id,
-    before,
-    after,
-  });
+const audit = (
+  ctx: ApplyContext,
+  action: string,
+  entityId: string,
+  before: unknown,
+  after: unknown,
+) => auditChange(ctx, { action, entity: "attachment", entityId, before, after });
 
 export async function applyAttachmentAdd(
   ctx: ApplyContext,

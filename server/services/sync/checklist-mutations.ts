@@ -1,12 +1,11 @@
 // Checklist runs and their results. Results are append-only (a correction is a newer result, the
 // latest per item counts), so they never conflict; a run is started once and signed off once,
-// after which it takes no more results.
-import type { z } from "zod";
+// after which it takes no more results. An unpacking run also needs a dew-point entry that cleared.
 import { checkResult } from "../../../shared/checklists";
+import { dewPointClears } from "../../../shared/field-entries";
 import { checklistItems } from "../../../shared/schemas/checklists";
-import type { mutationSchemas } from "../../../shared/sync/protocol";
+import { fieldEntryData } from "../../../shared/schemas/field-entries";
 import { nextChangeSeq } from "../../db/change-seq";
-import { recordAudit } from "../../db/repositories/audit";
 import {
   findRunForUpdate,
   findTemplate,
@@ -17,23 +16,18 @@ import {
   runIdTaken,
   updateRun,
 } from "../../db/repositories/checklists";
+import { dewPointEntriesOfRun } from "../../db/repositories/field-entries";
 import { findSiteAnywhere } from "../../db/repositories/sites";
 import { presentResult, presentRun } from "../../presenters/checklist";
-import { Rejection, type ApplyContext, type ApplyOutcome } from "./context";
+import { auditChange, Rejection, type ApplyContext, type ApplyOutcome, type Args } from "./context";
 
-type Args<N extends keyof typeof mutationSchemas> = z.output<(typeof mutationSchemas)[N]>;
-
-const audit = (ctx: ApplyContext, action: string, entity: string, id: string, after: unknown) =>
-  recordAudit(ctx.tx, {
-    campaignId: ctx.campaignId,
-    userId: ctx.userId,
-    clientId: ctx.clientId,
-    action,
-    entity,
-    entityId: id,
-    before: null,
-    after,
-  });
+const audit = (
+  ctx: ApplyContext,
+  action: string,
+  entity: string,
+  entityId: string,
+  after: unknown,
+) => auditChange(ctx, { action, entity, entityId, after });
 
 export async function applyChecklistStart(
   ctx: ApplyContext,
@@ -92,6 +86,15 @@ export async function applyChecklistRecord(
   return { status: "applied" };
 }
 
+/** Condensation on cold optics is the hazard: one passed (or overridden) check for this run clears it. */
+async function dewPointCleared(ctx: ApplyContext, runId: string): Promise<boolean> {
+  for (const { data } of await dewPointEntriesOfRun(ctx.tx, ctx.campaignId, runId)) {
+    const parsed = fieldEntryData.parse(data);
+    if (parsed.kind === "dew-point" && dewPointClears(parsed)) return true;
+  }
+  return false;
+}
+
 export async function applyChecklistSignOff(
   ctx: ApplyContext,
   args: Args<"checklist.signOff">,
@@ -106,6 +109,10 @@ export async function applyChecklistSignOff(
     .map((i) => i.label);
   if (missing.length > 0)
     throw new Rejection(`Not signed off: no result yet for ${missing.join("; ")}`);
+  if (run.purpose === "unpacking" && !(await dewPointCleared(ctx, run.id)))
+    throw new Rejection(
+      "Not signed off: the dew-point check must pass, or be overridden with a reason, before the crate is unpacked",
+    );
   const row = await updateRun(ctx.tx, run.id, {
     signedOffAt: new Date(args.signedOffAt),
     signedOffBy: ctx.userId,

@@ -2,15 +2,13 @@
 // (checked by the field's own schema) and the conflict is closed, both in the change stream.
 import type { z } from "zod";
 import { sitePatchSchema, type SitePatch } from "../../../shared/schemas/sites";
-import type { mutationSchemas } from "../../../shared/sync/protocol";
 import { nextChangeSeq } from "../../db/change-seq";
-import { recordAudit } from "../../db/repositories/audit";
 import { findSiteForUpdate, updateSite } from "../../db/repositories/sites";
 import { findConflictForUpdate, updateConflict } from "../../db/repositories/sync";
 import { presentSite } from "../../presenters/site";
-import { Rejection, type ApplyContext, type ApplyOutcome } from "./context";
+import { auditChange, Rejection, type ApplyContext, type ApplyOutcome, type Args } from "./context";
 
-type ResolveArgs = z.output<(typeof mutationSchemas)["conflict.resolve"]>;
+type ResolveArgs = Args<"conflict.resolve">;
 
 function checkedValue(field: string, value: unknown): unknown {
   const shape: Record<string, z.ZodType> = sitePatchSchema.shape;
@@ -44,10 +42,7 @@ export async function applyConflictResolve(
       updatedBy: ctx.userId,
       changeSeq: await nextChangeSeq(ctx.tx, ctx.campaignId),
     });
-    await recordAudit(ctx.tx, {
-      campaignId: ctx.campaignId,
-      userId: ctx.userId,
-      clientId: ctx.clientId,
+    await auditChange(ctx, {
       action: "resolve-conflict",
       entity: "site",
       entityId: site.id,

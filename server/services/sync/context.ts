@@ -1,5 +1,8 @@
+import type { z } from "zod";
 import type { Role } from "../../../shared/permissions";
+import type { mutationSchemas } from "../../../shared/sync/protocol";
 import type { Tx } from "../../db/client";
+import { recordAudit } from "../../db/repositories/audit";
 
 export interface ApplyContext {
   tx: Tx;
@@ -30,3 +33,19 @@ export async function settle(work: () => Promise<ApplyOutcome>): Promise<Settled
     throw error;
   }
 }
+
+/** The validated arguments of one mutation kind. */
+export type Args<N extends keyof typeof mutationSchemas> = z.output<(typeof mutationSchemas)[N]>;
+
+/** The audit event of one applied mutation: by whom, from which device, before and after. */
+export const auditChange = (
+  ctx: Pick<ApplyContext, "tx" | "campaignId" | "userId" | "clientId">,
+  change: { action: string; entity: string; entityId: string; before?: unknown; after: unknown },
+) =>
+  recordAudit(ctx.tx, {
+    campaignId: ctx.campaignId,
+    userId: ctx.userId,
+    clientId: ctx.clientId,
+    before: null,
+    ...change,
+  });

@@ -5,6 +5,9 @@ import type { ChangeRecord, PullResponse, pullQuery } from "../../../shared/sync
 import type { Db, Tx } from "../../db/client";
 import { attachmentLinksAfter } from "../../db/repositories/attachment-links";
 import { resultsAfter, runsAfter, templatesAfter } from "../../db/repositories/checklists";
+import { cratesAfter } from "../../db/repositories/crates-benchmarks";
+import { entriesAfter } from "../../db/repositories/field-entries";
+import { sectionsAfter, setupsAfter } from "../../db/repositories/levelling";
 import {
   conflictsAfter,
   findSyncClient,
@@ -15,6 +18,9 @@ import { forbidden } from "../../http-errors";
 import { presentAttachmentLink } from "../../presenters/attachment-link";
 import { presentResult, presentRun, presentTemplate } from "../../presenters/checklist";
 import { presentConflict } from "../../presenters/conflict";
+import { presentCrate } from "../../presenters/crate-benchmark";
+import { presentFieldEntry } from "../../presenters/field-entry";
+import { presentSection, presentSetup } from "../../presenters/levelling";
 import { presentSite } from "../../presenters/site";
 import { assertProtocol } from "./push";
 
@@ -69,6 +75,35 @@ const sources: Source[] = [
       seq: r.changeSeq,
       id: r.id,
       data: presentResult(r),
+    })),
+  // Read-only on tablets for now; deleted crates are left out (the view has no tombstone yet).
+  async (tx, ...range) =>
+    (await cratesAfter(tx, ...range)).map((r) => ({
+      entity: "crate",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentCrate(r),
+    })),
+  async (tx, ...range) =>
+    (await entriesAfter(tx, ...range)).map((r) => ({
+      entity: "fieldEntry",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentFieldEntry(r),
+    })),
+  async (tx, ...range) =>
+    (await sectionsAfter(tx, ...range)).map((r) => ({
+      entity: "levellingSection",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentSection(r),
+    })),
+  async (tx, ...range) =>
+    (await setupsAfter(tx, ...range)).map((r) => ({
+      entity: "levellingSetup",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentSetup(r),
     })),
 ];
 

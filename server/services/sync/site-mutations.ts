@@ -1,11 +1,9 @@
 // How each site mutation is applied. Edits merge field by field against the value the client saw:
 // a field nobody else changed takes the client's value; a field changed on both sides keeps the
 // server's value and opens a conflict holding both, for a person to resolve.
-import type { z } from "zod";
 import type { SitePatch } from "../../../shared/schemas/sites";
-import type { mutationSchemas } from "../../../shared/sync/protocol";
 import { nextChangeSeq, takeChangeSeqs } from "../../db/change-seq";
-import { recordAudit, recordAudits, type AuditEntry } from "../../db/repositories/audit";
+import { recordAudits, type AuditEntry } from "../../db/repositories/audit";
 import {
   findSiteForUpdate,
   insertSites,
@@ -15,14 +13,15 @@ import {
 import { insertConflict } from "../../db/repositories/sync";
 import { presentSite } from "../../presenters/site";
 import {
+  auditChange,
   Rejection,
   sameValue,
   type ApplyContext,
   type ApplyOutcome,
+  type Args,
   type Settled,
 } from "./context";
 
-type Args<N extends keyof typeof mutationSchemas> = z.output<(typeof mutationSchemas)[N]>;
 type SiteField = keyof SitePatch;
 
 /** What an audit row and a run of creates need: no single mutation id, no role past the checks. */
@@ -51,7 +50,7 @@ const audit = (
   entityId: string,
   before: unknown,
   after: unknown,
-) => recordAudit(ctx.tx, auditEntry(ctx, action, entityId, before, after));
+) => auditChange(ctx, { action, entity: "site", entityId, before, after });
 
 /**
  * Applies a run of consecutive creates with one query per step rather than four per create, with

@@ -1,4 +1,4 @@
-import { NavLink, Outlet, useOutletContext, useParams } from "react-router-dom";
+import { NavLink, Outlet, useLocation, useOutletContext, useParams } from "react-router-dom";
 import { can, roleLabels, type Role } from "../../../shared/permissions";
 import { LinkButton } from "../../components/button";
 import { Notice } from "../../components/notice";
@@ -40,18 +40,37 @@ function ConflictsTab({ campaignId }: { campaignId: string }) {
 }
 
 function CampaignNav({ campaign }: { campaign: CampaignContext }) {
+  // A site's board and its entries live under /sites/:id, but belong to the board tab.
+  const { pathname } = useLocation();
+  const onBoard =
+    /\/sites\/(?!new$)[^/]+(\/(entries\/.*|levelling|import|temperatures))?$/.test(pathname) ||
+    /\/(entries|levelling|checklists)\//.test(pathname);
   return (
     <nav
       aria-label="Campaign"
       className="mb-6 flex flex-wrap items-end gap-1 border-b-2 border-line"
     >
-      <NavLink to={paths.sites(campaign.campaignId)} className={tabClass}>
+      <NavLink
+        to={paths.board(campaign.campaignId)}
+        className={({ isActive }) => tabClass({ isActive: isActive || onBoard })}
+      >
+        Site board
+      </NavLink>
+      <NavLink
+        to={paths.sites(campaign.campaignId)}
+        className={({ isActive }) => tabClass({ isActive: isActive && !onBoard })}
+      >
         Sites
       </NavLink>
       <ConflictsTab campaignId={campaign.campaignId} />
       {can(campaign.role, "member.read") && (
         <NavLink to={paths.members(campaign.campaignId)} className={tabClass}>
           Members
+        </NavLink>
+      )}
+      {can(campaign.role, "checklist.template.write") && (
+        <NavLink to={paths.checklistTemplates(campaign.campaignId)} className={tabClass}>
+          Checklist templates
         </NavLink>
       )}
     </nav>

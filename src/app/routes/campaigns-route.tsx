@@ -9,7 +9,7 @@ export function CampaignsRoute() {
   return (
     <>
       <PageHeader title="Choose a campaign" lead="Your campaigns and your role in each." />
-      <CampaignPicker memberships={memberships} hrefOf={paths.sites} />
+      <CampaignPicker memberships={memberships} hrefOf={paths.campaign} />
     </>
   );
 }

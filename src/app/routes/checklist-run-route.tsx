@@ -1,6 +1,8 @@
 import { useParams } from "react-router-dom";
 import { can } from "../../../shared/permissions";
 import { ChecklistRun } from "../../features/checklists/components/checklist-run";
+import { DewPointGate } from "../../features/field-entries/components/dew-point-gate";
+import { useCrates, useSiteEntries } from "../../features/field-entries/hooks/use-field-entries";
 import { useChecklistRun } from "../../features/checklists/hooks/use-checklists";
 import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
 import { LinkButton } from "../../components/button";
@@ -16,6 +18,8 @@ export function ChecklistRunRoute() {
   const { runId = "" } = useParams();
   const { run, results } = useChecklistRun(campaignId, runId);
   const site = useLocalSite(campaignId, run?.siteId ?? "");
+  const entries = useSiteEntries(campaignId, run?.siteId ?? "");
+  const crates = useCrates(campaignId);
   if (run === undefined || results === undefined)
     return <Loading label="Reading the checklist on this device…" />;
   if (run === null) {
@@ -38,7 +42,7 @@ export function ChecklistRunRoute() {
         lead={`At ${siteName} · started ${formatUtc(run.startedAt)} (${formatLocalBeside(run.startedAt)})`}
       />
       <div className="mb-4">
-        <LinkButton tone="quiet" className="px-0" to={paths.editSite(campaignId, run.siteId)}>
+        <LinkButton tone="quiet" className="px-0" to={paths.siteBoard(campaignId, run.siteId)}>
           Back to {siteName}
         </LinkButton>
       </div>
@@ -47,6 +51,21 @@ export function ChecklistRunRoute() {
         run={run}
         results={results}
         canRecord={can(role, "checklist.record")}
+        beforeSignOff={
+          run.purpose === "unpacking" && (
+            <DewPointGate
+              runId={run.id}
+              entries={entries ?? []}
+              crates={crates ?? []}
+              checkHref={
+                run.signedOffAt === null && can(role, "entry.record")
+                  ? paths.newEntry(campaignId, run.siteId, "dew-point", run.id)
+                  : null
+              }
+              entryHref={(id) => paths.entry(campaignId, id)}
+            />
+          )
+        }
       />
     </>
   );

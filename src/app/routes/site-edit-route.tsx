@@ -1,7 +1,6 @@
 import { useNavigate, useParams } from "react-router-dom";
 import { can } from "../../../shared/permissions";
 import { AttachmentPanel } from "../../features/attachments/components/attachment-panel";
-import { SiteChecklists } from "../../features/checklists/components/site-checklists";
 import { DeleteSiteControl } from "../../features/sites/components/delete-site-control";
 import { EditSiteForm } from "../../features/sites/components/edit-site-form";
 import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
@@ -47,12 +46,6 @@ export function SiteEditRoute() {
     <>
       <PageHeader title={`Edit ${site.name}`} lead={lead} />
       <EditSiteForm campaignId={campaignId} site={site} cancelHref={back} onSaved={onSaved} />
-      <SiteChecklists
-        campaignId={campaignId}
-        siteId={site.id}
-        canRecord={can(role, "checklist.record")}
-        runHref={(runId) => paths.checklistRun(campaignId, runId)}
-      />
       <AttachmentPanel
         campaignId={campaignId}
         subject={{ kind: "site", id: site.id, label: site.name }}

@@ -44,6 +44,7 @@ export function SitesRoute() {
       <SiteList
         campaignId={campaignId}
         editHrefOf={canWrite ? (siteId) => paths.editSite(campaignId, siteId) : null}
+        boardHrefOf={(siteId) => paths.siteBoard(campaignId, siteId)}
       />
     </>
   );

@@ -41,6 +41,10 @@ export const changeKindLabels: Record<MutationName, string> = {
   "checklist.start": "Start of a checklist",
   "checklist.record": "Checklist result",
   "checklist.signOff": "Sign-off of a checklist",
+  "entry.add": "Field entry",
+  "levelling.open": "New levelling section",
+  "levelling.setup": "Levelling setup",
+  "levelling.close": "Closing of a levelling section",
 };
 
 /** The site a refused change was about, by its typed name or by the name known on this device. */

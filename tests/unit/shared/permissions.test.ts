@@ -3,9 +3,16 @@ import { actions, actionsOf, can, roles } from "../../../shared/permissions";
 
 // The role table of DESIGN.md §6, restated here as the expectation the code must meet.
 const expected: Record<string, string[]> = {
-  field: ["campaign.read", "site.write", "attachment.write", "checklist.record"],
-  logistics: ["campaign.read", "site.write", "site.delete", "attachment.write"],
-  geodesist: ["campaign.read", "site.write", "site.delete", "attachment.write"],
+  field: [
+    "campaign.read",
+    "site.write",
+    "attachment.write",
+    "checklist.record",
+    "entry.record",
+    "levelling.record",
+  ],
+  logistics: ["campaign.read", "site.write", "site.delete", "attachment.write", "entry.record"],
+  geodesist: ["campaign.read", "site.write", "site.delete", "attachment.write", "levelling.record"],
   reviewer: ["campaign.read"],
   admin: [
     "campaign.read",
@@ -16,6 +23,9 @@ const expected: Record<string, string[]> = {
     "invite.create",
     "attachment.write",
     "checklist.record",
+    "entry.record",
+    "levelling.record",
+    "checklist.template.write",
   ],
 };
 

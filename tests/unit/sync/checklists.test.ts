@@ -4,12 +4,16 @@
 import { describe, expect, it } from "vitest";
 import { checklistItems } from "../../../shared/schemas/checklists";
 import {
+  dewPointGate,
   latestResults,
   recordResultLocally,
   signOffLocally,
   startChecklistLocally,
 } from "../../../src/db/checklist-store";
 import { findChecklistRun, listChecklistRuns } from "../../../src/db/queries";
+import { addFieldEntryLocally } from "../../../src/db/field-entry-store";
+import { writeMeta } from "../../../src/db/meta";
+import { authorNameKey } from "../../../src/db/outbox";
 import { newDb } from "../../helpers/fake-sync";
 
 const campaignId = crypto.randomUUID();
@@ -89,5 +93,70 @@ describe("checklists on the tablet", () => {
       "checklist.record",
       "checklist.signOff",
     ]);
+  });
+
+  it("keeps an unpacking checklist open until a dew-point check for it passed or was overridden", async () => {
+    const db = await withTemplate();
+    await db.checklistTemplates.update(templateId, { purpose: "unpacking" });
+    await db.sites.put({
+      id: siteId,
+      campaignId,
+      name: "Ridge hut",
+      kind: "mountain",
+      latitudeDeg: 47,
+      longitudeDeg: 11,
+      approxHeightM: 2870,
+      notes: "",
+      version: 1,
+      updatedAt: "2027-06-01T00:00:00.000Z",
+      updatedBy: null,
+      deletedAt: null,
+      pendingChanges: 0,
+    });
+    const crateId = crypto.randomUUID();
+    await db.crates.put({
+      id: crateId,
+      campaignId,
+      label: "KR-03",
+      contents: "Cavity",
+      weightKg: 35,
+      maxShockG: 15,
+      temperatureMinC: 18,
+      temperatureMaxC: 25,
+      notes: "",
+      version: 1,
+      updatedAt: "2027-06-01T00:00:00.000Z",
+    });
+    await writeMeta(db, authorNameKey, "Ada Field");
+    const runId = await startChecklistLocally(db, campaignId, templateId, siteId);
+    await recordResultLocally(db, campaignId, runId, "room-temp", 21);
+    await recordResultLocally(db, campaignId, runId, "door", true);
+    expect((await latestResults(db, runId)).get("door")?.recordedByName).toBe("Ada Field");
+    await expect(signOffLocally(db, campaignId, runId)).rejects.toThrow(dewPointGate);
+    // Room 22 °C at 60 % RH: dew point 13.9 °C by Magnus (Alduchov & Eskridge constants), so a
+    // surface at 10 °C fails with the usual 3 K margin; the reason to open anyway clears it.
+    const check = (surface: number, overrideReason = "") =>
+      addFieldEntryLocally(db, campaignId, {
+        siteId,
+        crateId,
+        observedAt: "2027-06-02T08:00:00.000Z",
+        data: {
+          kind: "dew-point",
+          runId,
+          roomTemperatureC: 22,
+          roomHumidityPct: 60,
+          surfaceTemperatureC: surface,
+          overrideReason,
+        },
+      });
+    expect((await check(10)).flags.exceeded).toBe(true);
+    await expect(signOffLocally(db, campaignId, runId)).rejects.toThrow(dewPointGate);
+    expect(
+      (await check(12, "Crate must be opened to stop the ion pump alarm")).flags.exceeded,
+    ).toBe(false);
+    await signOffLocally(db, campaignId, runId);
+    expect(await findChecklistRun(db, campaignId, runId)).toMatchObject({
+      signedOffAt: expect.any(String),
+    });
   });
 });

@@ -1,6 +1,6 @@
 // Working through a checklist at the site: each item with its caution, its control and its latest
 // result; a number outside its range is flagged at once; sign-off when every required item is done.
-import { useState } from "react";
+import { useState, type ReactNode } from "react";
 import type { ChecklistItem } from "../../../../shared/schemas/checklists";
 import { describeRange } from "../../../../shared/checklists";
 import { hazardLabels } from "../../../../shared/schemas/checklists";
@@ -46,6 +46,7 @@ function Result({
       )}
       <span className="text-sm text-muted tabular-nums">
         {formatUtc(result.recordedAt)} ({formatLocalBeside(result.recordedAt)})
+        {result.recordedByName !== null && ` · ${result.recordedByName}`}
       </span>
       {result.pending && <PendingMark />}
     </div>
@@ -57,9 +58,17 @@ interface ChecklistRunProps {
   run: LocalChecklistRun;
   results: ReadonlyMap<string, LocalChecklistResult>;
   canRecord: boolean;
+  /** Shown above the sign-off: a check the run needs before it can be signed off. */
+  beforeSignOff?: ReactNode;
 }
 
-export function ChecklistRun({ campaignId, run, results, canRecord }: ChecklistRunProps) {
+export function ChecklistRun({
+  campaignId,
+  run,
+  results,
+  canRecord,
+  beforeSignOff,
+}: ChecklistRunProps) {
   const writes = useChecklistWrites(campaignId);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [note, setNote] = useState("");
@@ -111,6 +120,7 @@ export function ChecklistRun({ campaignId, run, results, canRecord }: ChecklistR
           </li>
         ))}
       </ol>
+      {beforeSignOff}
       {closed ? (
         <Notice title="Signed off">
           {formatUtc(run.signedOffAt ?? "")} ({formatLocalBeside(run.signedOffAt ?? "")})

@@ -1,5 +1,6 @@
 import { siteKindLabels } from "../../../../shared/schemas";
 import type { LocalSite } from "../../../db/database";
+import { Link } from "react-router-dom";
 import { LinkButton } from "../../../components/button";
 import { Loading } from "../../../components/loading";
 import { Notice } from "../../../components/notice";
@@ -19,13 +20,23 @@ interface SiteListProps {
   campaignId: string;
   /** Link to a site's edit page, or null when the person may not edit. */
   editHrefOf: ((siteId: string) => string) | null;
+  /** Link to a site's board. */
+  boardHrefOf: (siteId: string) => string;
 }
 
-function SiteRow({ site, editHref }: { site: LocalSite; editHref: string | null }) {
+interface SiteRowProps {
+  site: LocalSite;
+  editHref: string | null;
+  boardHref: string;
+}
+
+function SiteRow({ site, editHref, boardHref }: SiteRowProps) {
   return (
     <tr className="border-t border-line align-top max-sm:flex max-sm:flex-wrap max-sm:items-start max-sm:py-2">
       <th scope="row" className="px-4 py-3 text-left font-normal max-sm:w-full max-sm:pb-1">
-        <span className="block text-lg font-semibold">{site.name}</span>
+        <Link to={boardHref} className="inline-flex min-h-touch items-center text-lg font-semibold">
+          {site.name}
+        </Link>
         <span className="block text-sm text-muted">{siteKindLabels[site.kind]}</span>
         {site.pendingChanges > 0 && <PendingMark className="mt-1" />}
         {site.notes !== "" && <span className="mt-1 block max-w-prose text-sm">{site.notes}</span>}
@@ -57,10 +68,11 @@ function SiteRow({ site, editHref }: { site: LocalSite; editHref: string | null 
 interface SitesTableProps {
   sites: readonly LocalSite[];
   editHrefOf: SiteListProps["editHrefOf"];
+  boardHrefOf: SiteListProps["boardHrefOf"];
 }
 
 /** A table on tablets; on phones each row stacks into a card. */
-function SitesTable({ sites, editHrefOf }: SitesTableProps) {
+function SitesTable({ sites, editHrefOf, boardHrefOf }: SitesTableProps) {
   return (
     <div className="relative overflow-x-auto rounded-xl border-2 border-line bg-surface">
       <table className="w-full border-collapse max-sm:block">
@@ -88,7 +100,12 @@ function SitesTable({ sites, editHrefOf }: SitesTableProps) {
         </thead>
         <tbody className="max-sm:block">
           {sites.map((site) => (
-            <SiteRow key={site.id} site={site} editHref={editHrefOf?.(site.id) ?? null} />
+            <SiteRow
+              key={site.id}
+              site={site}
+              editHref={editHrefOf?.(site.id) ?? null}
+              boardHref={boardHrefOf(site.id)}
+            />
           ))}
         </tbody>
       </table>
@@ -115,7 +132,7 @@ function NotOnDeviceYet({ online, error }: { online: boolean; error: string | nu
   return <Loading label="Loading the campaign onto this device…" />;
 }
 
-export function SiteList({ campaignId, editHrefOf }: SiteListProps) {
+export function SiteList({ campaignId, editHrefOf, boardHrefOf }: SiteListProps) {
   const { sites, pulled } = useLocalSites(campaignId);
   const online = useConnectivity() === "online";
   const syncError = useSyncStatus().error;
@@ -127,7 +144,9 @@ export function SiteList({ campaignId, editHrefOf }: SiteListProps) {
       {pulled && sites.length === 0 && (
         <Notice title="No sites yet">This campaign has no sites yet.</Notice>
       )}
-      {sites.length > 0 && <SitesTable sites={sites} editHrefOf={editHrefOf} />}
+      {sites.length > 0 && (
+        <SitesTable sites={sites} editHrefOf={editHrefOf} boardHrefOf={boardHrefOf} />
+      )}
     </div>
   );
 }

@@ -37,7 +37,7 @@ function summaryOf(status: SyncStatus): { word: string; shape: StatusShapeName }
   return { word: `${waiting} not yet sent`, shape: "dots" };
 }
 
-function LastSync({ at }: { at: string | null }) {
+export function LastSync({ at }: { at: string | null }) {
   if (at === null) return <span className="text-muted">Not yet synced on this device</span>;
   return (
     <span className="tabular-nums">

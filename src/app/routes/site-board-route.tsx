@@ -1,0 +1,247 @@
+// The crew's home at a site: what to record, the open checklists, the crates here and any limit
+// exceeded, the latest entries, what waits to be sent and how long the comparison still has to run.
+import { useState, type ReactNode } from "react";
+import { Navigate, useParams } from "react-router-dom";
+import { can } from "../../../shared/permissions";
+import { SiteChecklists } from "../../features/checklists/components/site-checklists";
+import { CratesOnSite } from "../../features/field-entries/components/crates-on-site";
+import { EntryList } from "../../features/field-entries/components/entry-list";
+import { useCrates, useSiteEntries } from "../../features/field-entries/hooks/use-field-entries";
+import { SiteSections } from "../../features/levelling/components/site-sections";
+import { useLocalSite, useLocalSites } from "../../features/sites/hooks/use-local-sites";
+import { SyncCard } from "../../features/sync/components/sync-card";
+import { Button, LinkButton } from "../../components/button";
+import { Loading } from "../../components/loading";
+import { Notice } from "../../components/notice";
+import { PageHeader } from "../../components/page-header";
+import { StatusShape } from "../../components/status-shape";
+import { readCurrentSite, writeCurrentSite } from "../../lib/current-site";
+import { useCampaign } from "../layouts/campaign-layout";
+import { paths } from "../paths";
+
+function Section({ title, children }: { title: string; children: ReactNode }) {
+  const id = `board-${title.toLowerCase().replace(/\W+/g, "-")}`;
+  return (
+    <section aria-labelledby={id} className="flex flex-col gap-3">
+      <h2 id={id} className="text-xl font-semibold">
+        {title}
+      </h2>
+      {children}
+    </section>
+  );
+}
+
+function TimeLeftCard() {
+  return (
+    <section
+      aria-label="Comparison time left"
+      className="flex flex-col gap-2 rounded-xl border-2 border-line bg-surface p-4"
+    >
+      <h2 className="text-sm font-semibold tracking-wide text-muted uppercase">Time left</h2>
+      <p className="flex items-center gap-2 text-lg font-semibold">
+        <StatusShape shape="ring" className="text-muted" />
+        No comparison run here yet
+      </p>
+      <p className="text-sm text-muted">
+        The estimate appears once comparison data for this site has been analysed, and stays
+        readable offline.
+      </p>
+    </section>
+  );
+}
+
+function AlertsCard({ count }: { count: number }) {
+  return (
+    <section
+      aria-label="Limit alerts"
+      className={`flex flex-col gap-2 rounded-xl border-2 p-4 ${count > 0 ? "border-danger bg-danger-soft text-danger-ink" : "border-line bg-surface"}`}
+    >
+      <h2 className="text-sm font-semibold tracking-wide uppercase">Limit alerts</h2>
+      <p className="flex items-center gap-2 text-lg font-semibold">
+        <StatusShape
+          shape={count > 0 ? "octagon" : "disc"}
+          className={count > 0 ? "text-danger" : "text-primary"}
+        />
+        {count === 0
+          ? "None"
+          : count === 1
+            ? "1 entry beyond limits"
+            : `${count} entries beyond limits`}
+      </p>
+    </section>
+  );
+}
+
+export function SiteBoardRoute() {
+  const { campaignId, role } = useCampaign();
+  const { siteId = "" } = useParams();
+  const site = useLocalSite(campaignId, siteId);
+  const entries = useSiteEntries(campaignId, siteId);
+  const crates = useCrates(campaignId);
+  const [current, setCurrent] = useState(() => readCurrentSite(campaignId));
+
+  if (site === undefined || entries === undefined || crates === undefined)
+    return <Loading label="Reading the site on this device…" />;
+  if (site === null)
+    return (
+      <div className="flex flex-col gap-4">
+        <Notice tone="attention" title="Site not found">
+          It may have been deleted, or it is not on this device yet.
+        </Notice>
+        <div>
+          <LinkButton to={paths.sites(campaignId)}>Back to the sites</LinkButton>
+        </div>
+      </div>
+    );
+  const mine = current === site.id;
+  const choose = (id: string | null) => {
+    writeCurrentSite(campaignId, id);
+    setCurrent(id);
+  };
+  const alerts = entries.filter((e) => e.flags.exceeded);
+  const canRecord = can(role, "entry.record");
+  const record = (kind: string, label: string) => (
+    <LinkButton key={kind} to={paths.newEntry(campaignId, site.id, kind)} className="justify-start">
+      {label}
+    </LinkButton>
+  );
+  const entryHref = (id: string) => paths.entry(campaignId, id);
+  return (
+    <>
+      <PageHeader
+        title={site.name}
+        lead={
+          mine ? (
+            <span className="flex items-center gap-2">
+              <StatusShape shape="disc" className="text-primary" /> This tablet's site
+            </span>
+          ) : (
+            "Site board"
+          )
+        }
+        actions={
+          <>
+            {mine ? (
+              <Button tone="quiet" onClick={() => choose(null)}>
+                Not at this site any more
+              </Button>
+            ) : (
+              <Button onClick={() => choose(site.id)}>I am at this site</Button>
+            )}
+            {can(role, "site.write") && (
+              <LinkButton to={paths.editSite(campaignId, site.id)}>Site details</LinkButton>
+            )}
+          </>
+        }
+      />
+      <div className="flex flex-col gap-8">
+        <div className="grid gap-4 md:grid-cols-3">
+          <SyncCard />
+          <AlertsCard count={alerts.length} />
+          <TimeLeftCard />
+        </div>
+        {canRecord && (
+          <Section title="Record">
+            <div className="grid grid-cols-2 gap-3 lg:grid-cols-4">
+              {record("shock-indicator", "Shock indicator")}
+              {record("shock-log", "Shock logger event")}
+              {record("dew-point", "Dew-point check")}
+              {record("observation", "Observation")}
+              <LinkButton
+                to={paths.entryImport(campaignId, site.id, "shock-log")}
+                className="justify-start"
+              >
+                Import shock logger file
+              </LinkButton>
+              <LinkButton
+                to={paths.entryImport(campaignId, site.id, "temperatures")}
+                className="justify-start"
+              >
+                Import temperature file
+              </LinkButton>
+            </div>
+          </Section>
+        )}
+        <div className="flex flex-wrap gap-3">
+          <LinkButton to={paths.temperatures(campaignId, site.id)}>Temperatures</LinkButton>
+          <LinkButton to={paths.levelling(campaignId, site.id)}>Levelling field books</LinkButton>
+        </div>
+        <SiteChecklists
+          campaignId={campaignId}
+          siteId={site.id}
+          canRecord={can(role, "checklist.record")}
+          runHref={(runId) => paths.checklistRun(campaignId, runId)}
+        />
+        {alerts.length > 0 && (
+          <Section title="Beyond limits">
+            <EntryList
+              label="Entries beyond limits"
+              entries={alerts}
+              crates={crates}
+              entryHref={entryHref}
+              empty=""
+            />
+          </Section>
+        )}
+        <div className="grid gap-8 lg:grid-cols-2">
+          <Section title="Crates here">
+            <CratesOnSite entries={entries} crates={crates} />
+          </Section>
+          <Section title="Levelling">
+            <SiteSections
+              campaignId={campaignId}
+              siteId={site.id}
+              sectionHref={(id) => paths.levellingSection(campaignId, id)}
+            />
+          </Section>
+          <Section title="Latest entries">
+            <EntryList
+              label="Latest entries"
+              entries={entries.slice(0, 8)}
+              crates={crates}
+              entryHref={entryHref}
+              empty="Nothing recorded at this site yet."
+            />
+          </Section>
+        </div>
+      </div>
+    </>
+  );
+}
+
+/** The board of the site chosen on this tablet, or the choice of one. */
+export function BoardRoute() {
+  const { campaignId } = useCampaign();
+  const { sites } = useLocalSites(campaignId);
+  const current = readCurrentSite(campaignId);
+  if (sites === undefined) return <Loading label="Reading the sites on this device…" />;
+  if (current !== null && sites.some((s) => s.id === current))
+    return <Navigate to={paths.siteBoard(campaignId, current)} replace />;
+  return (
+    <>
+      <PageHeader
+        title="Which site are you at?"
+        lead="The board of that site opens here from now on."
+      />
+      {sites.length === 0 ? (
+        <Notice tone="attention" title="No sites on this device yet">
+          Sync once with a connection to bring the campaign's sites here.
+        </Notice>
+      ) : (
+        <ul aria-label="Sites" className="grid gap-3 md:grid-cols-2">
+          {sites.map((site) => (
+            <li key={site.id}>
+              <LinkButton
+                to={paths.siteBoard(campaignId, site.id)}
+                onClick={() => writeCurrentSite(campaignId, site.id)}
+                className="w-full justify-start"
+              >
+                {site.name}
+              </LinkButton>
+            </li>
+          ))}
+        </ul>
+      )}
+    </>
+  );
+}
