@@ -69,15 +69,17 @@ export function assessEntry(data: FieldEntryData, crate: CrateLimits | null): En
           exceeded: false,
           summary: `${range}, within ${celsius(crate.temperatureMinC)} … ${celsius(crate.temperatureMaxC)}`,
         };
-      const stats = uniqueTimes(samples)
-        ? temperatureStatistics(
-            {
-              timeS: samples.map((s) => Date.parse(s.at) / 1000),
-              temperatureC: samples.map((s) => s.celsius),
-            },
-            { minC: crate.temperatureMinC, maxC: crate.temperatureMaxC },
-          )
-        : null;
+      // A single reading covers no time: say it is outside, not for how long.
+      const stats =
+        samples.length > 1 && uniqueTimes(samples)
+          ? temperatureStatistics(
+              {
+                timeS: samples.map((s) => Date.parse(s.at) / 1000),
+                temperatureC: samples.map((s) => s.celsius),
+              },
+              { minC: crate.temperatureMinC, maxC: crate.temperatureMaxC },
+            )
+          : null;
       const minutes = stats ? `, ${Math.round(stats.outsideS / 60)} min outside` : "";
       return {
         exceeded: true,

@@ -38,7 +38,7 @@ const looks = [
 ] as const;
 
 describe.each(looks)("in the $label look", ({ label, theme }) => {
-  test("sign-in, sites and the site form pass axe", async () => {
+  test("sign-in, sites, the site form and the field screens pass axe", async () => {
     await page.context().clearCookies();
     await page.goto(`${server.baseUrl}/sign-in`);
     await page.evaluate(() => localStorage.removeItem("equipot.session.v1"));
@@ -73,15 +73,41 @@ describe.each(looks)("in the $label look", ({ label, theme }) => {
     await page.goto(`${campaignUrl}/members`);
     await page.getByRole("table", { name: "Members of this campaign" }).waitFor();
     expect(await seriousViolations(page)).toEqual([]);
+
+    // The field screens, where sunlight makes the high-contrast look matter most.
+    await page.goto(`${campaignUrl}/sites`);
+    await page.getByRole("link", { name: "Kestrel Ridge hut", exact: true }).click();
+    await page.getByRole("heading", { name: "Kestrel Ridge hut", level: 1 }).waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, `theme-${theme}-site-board-1024x768`);
+    const board = page.url();
+    await page.getByRole("link", { name: "Dew-point check" }).click();
+    await page.getByRole("button", { name: "Save check" }).click();
+    await page.locator('[aria-invalid="true"]').first().waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
+    await page.goto(`${board}/levelling`);
+    await page.getByRole("heading", { name: /^Levelling at/ }).waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
+    await page.goto(`${board}/temperatures`);
+    await page.getByRole("heading", { name: "Temperatures", level: 1 }).waitFor();
+    expect(await seriousViolations(page)).toEqual([]);
     await page.getByRole("button", { name: "Sign out" }).click();
     await page.getByRole("heading", { name: "Sign in" }).waitFor();
   });
 });
 
-test("every button and link on the sites screen is at least 48 px tall", async () => {
+test("every button and link on the sites screen and the site board is at least 48 px tall", async () => {
   await page.setViewportSize(viewports.tabletPortrait);
   await openDemoSites(page, server.baseUrl, "admin");
-  const small = await page.evaluate(() =>
+  expect(await smallTargets(page)).toEqual([]);
+  await page.getByRole("link", { name: "Kestrel Ridge hut", exact: true }).click();
+  await page.getByRole("heading", { name: "Kestrel Ridge hut", level: 1 }).waitFor();
+  expect(await smallTargets(page)).toEqual([]);
+});
+
+/** Buttons, links and inputs smaller than 48 × 48 px, by their text and size. */
+function smallTargets(page: Page) {
+  return page.evaluate(() =>
     [
       ...document.querySelectorAll(
         "main a, main button, header a, header button, section[aria-label=Sync] a, section[aria-label=Sync] button, input, select",
@@ -94,5 +120,4 @@ test("every button and link on the sites screen is at least 48 px tall", async (
       .filter(({ box }) => box.height < 47.5 || box.width < 47.5)
       .map(({ name, box }) => `${name} ${Math.round(box.width)}×${Math.round(box.height)}`),
   );
-  expect(small).toEqual([]);
-});
+}

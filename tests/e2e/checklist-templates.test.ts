@@ -1,38 +1,16 @@
 // An administrator edits the arrival checklist in the office: adds a number item with an allowed
 // range, is told at the field when the range is upside down, saves, and the crew's tablets pull the
 // new item. Offline, the editor says that templates are edited with a connection.
-import { afterAll, beforeAll, expect, test } from "vitest";
-import type { Page } from "playwright-core";
-import {
-  launchProfile,
-  screenshot,
-  screenshotOnFailure,
-  viewports,
-  type Profile,
-} from "../helpers/browser";
-import { startTestServer, type TestServer } from "../helpers/server";
+import { expect, test } from "vitest";
+import { screenshot, viewports } from "../helpers/browser";
+import { tabletForFile } from "../helpers/tablet";
 import type { ChecklistTemplateView } from "../../shared/schemas/checklists";
 import { apiCall, apiSignIn, openDemoSites, pullDemoCampaign, seriousViolations } from "./flows";
 
-let server: TestServer;
-let profile: Profile;
-let current: Page | undefined;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  profile = await launchProfile({ viewport: viewports.tabletLandscape });
-});
-
-screenshotOnFailure(() => current);
-
-afterAll(async () => {
-  await profile?.close();
-  await server?.stop();
-});
+const tablet = tabletForFile(viewports.tabletLandscape);
 
 test("an administrator edits templates online: a ranged number item, a stale save, offline, a new one deleted", async () => {
-  const page = profile.context.pages()[0] ?? (await profile.context.newPage());
-  current = page;
+  const { page, server, profile } = tablet;
   await openDemoSites(page, server.baseUrl, "admin");
   await page
     .getByRole("navigation", { name: "Campaign" })

@@ -1,33 +1,13 @@
 // A crew at the site, offline: starts the arrival checklist, enters one number outside its range
 // (flagged at once), sees the weather caution, is told what is missing before sign-off, finishes,
 // and everything reaches the server when the network returns.
-import { afterAll, beforeAll, expect, test } from "vitest";
+import { expect, test } from "vitest";
 import type { Page } from "playwright-core";
-import {
-  launchProfile,
-  screenshot,
-  screenshotOnFailure,
-  viewports,
-  type Profile,
-} from "../helpers/browser";
-import { startTestServer, type TestServer } from "../helpers/server";
+import { screenshot, viewports } from "../helpers/browser";
+import { tabletForFile } from "../helpers/tablet";
 import { pullDemoCampaign, readyForOffline, seriousViolations, waitForSyncStatus } from "./flows";
 
-let server: TestServer;
-let profile: Profile;
-let current: Page | undefined;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  profile = await launchProfile({ viewport: viewports.tabletPortrait });
-});
-
-screenshotOnFailure(() => current);
-
-afterAll(async () => {
-  await profile?.close();
-  await server?.stop();
-});
+const tablet = tabletForFile(viewports.tabletPortrait);
 
 const item = (page: Page, label: string) =>
   page
@@ -38,8 +18,7 @@ const item = (page: Page, label: string) =>
     });
 
 test("the arrival checklist worked offline, with a number out of range, reaches the server", async () => {
-  const page = profile.context.pages()[0] ?? (await profile.context.newPage());
-  current = page;
+  const { page, server, profile } = tablet;
   await readyForOffline(page, server.baseUrl, "field");
 
   await profile.context.setOffline(true);
@@ -101,5 +80,4 @@ test("the arrival checklist worked offline, with a number out of range, reaches 
   expect(
     pulled.changes.some((c) => c.entity === "attachment" && c.data.subject.kind === "checklistRun"),
   ).toBe(true);
-  current = undefined;
 });

@@ -1,33 +1,13 @@
 // A crew levels from the clock's reference point to a benchmark and back, offline: one misread
 // foresight puts the section out of tolerance (warned before closing), a correction brings it
 // back, the section is closed, and everything reaches the server when the network returns.
-import { afterAll, beforeAll, expect, test } from "vitest";
+import { expect, test } from "vitest";
 import type { Page } from "playwright-core";
-import {
-  launchProfile,
-  screenshot,
-  screenshotOnFailure,
-  viewports,
-  type Profile,
-} from "../helpers/browser";
-import { startTestServer, type TestServer } from "../helpers/server";
+import { screenshot, viewports } from "../helpers/browser";
+import { tabletForFile } from "../helpers/tablet";
 import { pullDemoCampaign, readyForOffline, seriousViolations, waitForSyncStatus } from "./flows";
 
-let server: TestServer;
-let profile: Profile;
-let current: Page | undefined;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  profile = await launchProfile({ viewport: viewports.tabletPortrait });
-});
-
-screenshotOnFailure(() => current);
-
-afterAll(async () => {
-  await profile?.close();
-  await server?.stop();
-});
+const tablet = tabletForFile(viewports.tabletPortrait);
 
 const from = "Clock reference";
 const to = "BM K-7";
@@ -52,8 +32,7 @@ async function typeSetup(page: Page, runName: string, number: number, values: st
 // 173 m, backward −0.3660 m over 181 m; K = 0.177 km, second-order I allows 6·√0.177 = 2.5 mm
 // (FGCC 1984, REFERENCES.md §4). FS 0.9460 read for 0.9560 gives +10.6 mm instead of +0.6 mm.
 test("a section levelled offline, out of tolerance until corrected, closed and synced", async () => {
-  const page = profile.context.pages()[0] ?? (await profile.context.newPage());
-  current = page;
+  const { page, server, profile } = tablet;
   await readyForOffline(page, server.baseUrl, "field");
   const demo = await pullDemoCampaign(server.baseUrl, "reviewer");
   const site = demo.changes.find((c) => c.entity === "site" && c.data.name === "Kestrel Ridge hut");
@@ -143,5 +122,4 @@ test("a section levelled offline, out of tolerance until corrected, closed and s
       .map((s) => s.foresightM)
       .sort(),
   ).toEqual([0.946, 0.956]);
-  current = undefined;
 });

@@ -1,14 +1,8 @@
 // After one online visit the app opens offline: the shell from the service worker, the session
 // from what this device remembers, and the sites from this device's working copy (IndexedDB).
-import { afterAll, beforeAll, expect, test } from "vitest";
-import {
-  launchProfile,
-  screenshot,
-  screenshotOnFailure,
-  viewports,
-  type Profile,
-} from "../helpers/browser";
-import { startTestServer, type TestServer } from "../helpers/server";
+import { expect, test } from "vitest";
+import { screenshot, viewports } from "../helpers/browser";
+import { tabletForFile } from "../helpers/tablet";
 import {
   demoCampaignName,
   demoSiteNames,
@@ -17,23 +11,10 @@ import {
   waitForSyncStatus,
 } from "./flows";
 
-let server: TestServer;
-let profile: Profile;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  profile = await launchProfile({ viewport: viewports.tabletLandscape });
-});
-
-screenshotOnFailure(() => profile?.context.pages()[0]);
-
-afterAll(async () => {
-  await profile?.close();
-  await server?.stop();
-});
+const tablet = tabletForFile(viewports.tabletLandscape);
 
 test("signed in once online, the app reopens offline with the cached sites", async () => {
-  const page = profile.context.pages()[0] ?? (await profile.context.newPage());
+  const { page, server, profile } = tablet;
   await openDemoSites(page, server.baseUrl, "field");
   const sitesUrl = page.url();
 

@@ -4,33 +4,13 @@
 // good one, levels a section with one bad reading flagged, checks the dew point before unpacking —
 // and when the network returns every entry is on the server. Each screen is checked with axe.
 import { readFile } from "node:fs/promises";
-import { afterAll, beforeAll, expect, test } from "vitest";
+import { expect, test } from "vitest";
 import type { Page } from "playwright-core";
-import {
-  launchProfile,
-  screenshot,
-  screenshotOnFailure,
-  viewports,
-  type Profile,
-} from "../helpers/browser";
-import { startTestServer, type TestServer } from "../helpers/server";
+import { screenshot, viewports } from "../helpers/browser";
+import { tabletForFile } from "../helpers/tablet";
 import { pullDemoCampaign, readyForOffline, seriousViolations, waitForSyncStatus } from "./flows";
 
-let server: TestServer;
-let profile: Profile;
-let current: Page | undefined;
-
-beforeAll(async () => {
-  server = await startTestServer();
-  profile = await launchProfile({ viewport: viewports.tabletPortrait });
-});
-
-screenshotOnFailure(() => current);
-
-afterAll(async () => {
-  await profile?.close();
-  await server?.stop();
-});
+const tablet = tabletForFile(viewports.tabletPortrait);
 
 const fixture = (name: string) => readFile(new URL(`../fixtures/loggers/${name}`, import.meta.url));
 const png = Buffer.from(
@@ -199,8 +179,7 @@ async function unpacking(page: Page) {
 }
 
 test("a whole site day offline on a tablet reaches the server when the network returns", async () => {
-  const page = profile.context.pages()[0] ?? (await profile.context.newPage());
-  current = page;
+  const { page, server, profile } = tablet;
   await readyForOffline(page, server.baseUrl, "field");
   await profile.context.setOffline(true);
 

@@ -10,12 +10,47 @@ import type {
   PushRequest,
   PushResponse,
 } from "../../shared/sync/protocol";
-import { openDatabase } from "../../src/db/database";
+import type { CrateView } from "../../shared/schemas/crates";
+import { openDatabase, type LocalSite } from "../../src/db/database";
 import { createSyncEngine } from "../../src/sync/engine";
 import { SyncError, type PullParams, type SyncTransport } from "../../src/sync/transport";
 
 export const newDb = () =>
   openDatabase(`t-${crypto.randomUUID()}`, { indexedDB: new IDBFactory(), IDBKeyRange });
+
+/** A site and a crate (with the demo's cavity-crate limits) as a pull leaves them on a tablet. */
+export function localSiteAndCrate(campaignId: string, siteId: string, crateId: string) {
+  const updatedAt = "2027-06-01T00:00:00.000Z";
+  const site: LocalSite = {
+    id: siteId,
+    campaignId,
+    name: "Ridge hut",
+    kind: "mountain",
+    latitudeDeg: 47,
+    longitudeDeg: 11,
+    approxHeightM: 2870,
+    notes: "",
+    version: 1,
+    updatedAt,
+    updatedBy: null,
+    deletedAt: null,
+    pendingChanges: 0,
+  };
+  const crate: CrateView = {
+    id: crateId,
+    campaignId,
+    label: "KR-03",
+    contents: "Cavity",
+    weightKg: 35,
+    maxShockG: 15,
+    temperatureMinC: 18,
+    temperatureMaxC: 25,
+    notes: "",
+    version: 1,
+    updatedAt,
+  };
+  return { site, crate };
+}
 
 type Seq = { seq: number };
 

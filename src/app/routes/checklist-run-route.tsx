@@ -7,10 +7,10 @@ import { useChecklistRun } from "../../features/checklists/hooks/use-checklists"
 import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
 import { LinkButton } from "../../components/button";
 import { Loading } from "../../components/loading";
-import { Notice } from "../../components/notice";
 import { PageHeader } from "../../components/page-header";
 import { formatLocalBeside, formatUtc } from "../../lib/format";
 import { useCampaign } from "../layouts/campaign-layout";
+import { NotFoundHere } from "../not-found-here";
 import { paths } from "../paths";
 
 export function ChecklistRunRoute() {
@@ -24,14 +24,9 @@ export function ChecklistRunRoute() {
     return <Loading label="Reading the checklist on this device…" />;
   if (run === null) {
     return (
-      <div className="flex flex-col gap-4">
-        <Notice tone="attention" title="Checklist not found">
-          It is not on this device yet.
-        </Notice>
-        <div>
-          <LinkButton to={paths.sites(campaignId)}>Back to the sites</LinkButton>
-        </div>
-      </div>
+      <NotFoundHere title="Checklist not found" backHref={paths.sites(campaignId)}>
+        It is not on this device yet.
+      </NotFoundHere>
     );
   }
   const siteName = site?.name ?? "the site";

@@ -9,6 +9,7 @@ import { Notice } from "../../components/notice";
 import { PageHeader } from "../../components/page-header";
 import { useCampaign } from "../layouts/campaign-layout";
 import { NotAllowed } from "../not-allowed";
+import { NotFoundHere } from "../not-found-here";
 import { paths } from "../paths";
 
 export function EntryImportRoute() {
@@ -34,14 +35,9 @@ export function EntryImportRoute() {
   if (site === undefined) return <Loading label="Reading the site on this device…" />;
   if (site === null)
     return (
-      <div className="flex flex-col gap-4">
-        <Notice tone="attention" title="Site not found">
-          It may have been deleted, or it is not on this device yet.
-        </Notice>
-        <div>
-          <LinkButton to={paths.sites(campaignId)}>Back to the sites</LinkButton>
-        </div>
-      </div>
+      <NotFoundHere title="Site not found" backHref={paths.sites(campaignId)}>
+        It may have been deleted, or it is not on this device yet.
+      </NotFoundHere>
     );
   const title = kind.data === "temperatures" ? "Import temperatures" : "Import shock logger events";
   return (

@@ -8,10 +8,10 @@ import { ShockIndicatorForm } from "../../features/field-entries/components/shoc
 import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
 import { LinkButton } from "../../components/button";
 import { Loading } from "../../components/loading";
-import { Notice } from "../../components/notice";
 import { PageHeader } from "../../components/page-header";
 import { useCampaign } from "../layouts/campaign-layout";
 import { NotAllowed } from "../not-allowed";
+import { NotFoundHere } from "../not-found-here";
 import { paths } from "../paths";
 
 /** Set by the entry forms once the entry committed on this device. */
@@ -46,16 +46,9 @@ export function EntryNewRoute() {
   const heading = titles[kind];
   if (site === null || heading === undefined)
     return (
-      <div className="flex flex-col gap-4">
-        <Notice tone="attention" title="Nothing to record here">
-          {site === null
-            ? "This site is not on this device."
-            : "This kind of entry does not exist."}
-        </Notice>
-        <div>
-          <LinkButton to={paths.sites(campaignId)}>Back to the sites</LinkButton>
-        </div>
-      </div>
+      <NotFoundHere title="Nothing to record here" backHref={paths.sites(campaignId)}>
+        {site === null ? "This site is not on this device." : "This kind of entry does not exist."}
+      </NotFoundHere>
     );
   const onSaved = (id: string, flags: EntryFlags) => {
     const state: EntrySavedState = { flags };

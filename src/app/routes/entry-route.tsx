@@ -10,6 +10,7 @@ import { Loading } from "../../components/loading";
 import { Notice } from "../../components/notice";
 import { PageHeader } from "../../components/page-header";
 import { useCampaign } from "../layouts/campaign-layout";
+import { NotFoundHere } from "../not-found-here";
 import { paths } from "../paths";
 import type { EntrySavedState } from "./entry-new-route";
 
@@ -35,14 +36,9 @@ export function EntryRoute() {
   if (entry === undefined) return <Loading label="Reading the entry on this device…" />;
   if (entry === null)
     return (
-      <div className="flex flex-col gap-4">
-        <Notice tone="attention" title="Entry not found">
-          It is not on this device yet.
-        </Notice>
-        <div>
-          <LinkButton to={paths.sites(campaignId)}>Back to the sites</LinkButton>
-        </div>
-      </div>
+      <NotFoundHere title="Entry not found" backHref={paths.sites(campaignId)}>
+        It is not on this device yet.
+      </NotFoundHere>
     );
   const crate = crates?.find((c) => c.id === entry.crateId) ?? null;
   const siteName = site?.name ?? "the site";

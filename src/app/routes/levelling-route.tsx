@@ -6,9 +6,9 @@ import { SiteSections } from "../../features/levelling/components/site-sections"
 import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
 import { LinkButton } from "../../components/button";
 import { Loading } from "../../components/loading";
-import { Notice } from "../../components/notice";
 import { PageHeader } from "../../components/page-header";
 import { useCampaign } from "../layouts/campaign-layout";
+import { NotFoundHere } from "../not-found-here";
 import { paths } from "../paths";
 
 export function LevellingRoute() {
@@ -19,14 +19,9 @@ export function LevellingRoute() {
   if (site === undefined) return <Loading label="Reading the site on this device…" />;
   if (site === null) {
     return (
-      <div className="flex flex-col gap-4">
-        <Notice tone="attention" title="Site not found">
-          It may have been deleted, or it is not on this device yet.
-        </Notice>
-        <div>
-          <LinkButton to={paths.sites(campaignId)}>Back to the sites</LinkButton>
-        </div>
-      </div>
+      <NotFoundHere title="Site not found" backHref={paths.sites(campaignId)}>
+        It may have been deleted, or it is not on this device yet.
+      </NotFoundHere>
     );
   }
   const canRecord = can(role, "levelling.record");

@@ -8,10 +8,10 @@ import { useLevellingSection } from "../../features/levelling/hooks/use-levellin
 import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
 import { LinkButton } from "../../components/button";
 import { Loading } from "../../components/loading";
-import { Notice } from "../../components/notice";
 import { PageHeader } from "../../components/page-header";
 import { PendingMark } from "../../components/pending-mark";
 import { useCampaign } from "../layouts/campaign-layout";
+import { NotFoundHere } from "../not-found-here";
 import { paths } from "../paths";
 
 export function LevellingSectionRoute() {
@@ -23,14 +23,9 @@ export function LevellingSectionRoute() {
     return <Loading label="Reading the field book on this device…" />;
   if (section === null) {
     return (
-      <div className="flex flex-col gap-4">
-        <Notice tone="attention" title="Section not found">
-          It is not on this device yet.
-        </Notice>
-        <div>
-          <LinkButton to={paths.sites(campaignId)}>Back to the sites</LinkButton>
-        </div>
-      </div>
+      <NotFoundHere title="Section not found" backHref={paths.sites(campaignId)}>
+        It is not on this device yet.
+      </NotFoundHere>
     );
   }
   const levellingClass = findLevellingClass(section.classId);

@@ -17,6 +17,7 @@ import { PageHeader } from "../../components/page-header";
 import { StatusShape } from "../../components/status-shape";
 import { readCurrentSite, writeCurrentSite } from "../../lib/current-site";
 import { useCampaign } from "../layouts/campaign-layout";
+import { NotFoundHere } from "../not-found-here";
 import { paths } from "../paths";
 
 function Section({ title, children }: { title: string; children: ReactNode }) {
@@ -84,14 +85,9 @@ export function SiteBoardRoute() {
     return <Loading label="Reading the site on this device…" />;
   if (site === null)
     return (
-      <div className="flex flex-col gap-4">
-        <Notice tone="attention" title="Site not found">
-          It may have been deleted, or it is not on this device yet.
-        </Notice>
-        <div>
-          <LinkButton to={paths.sites(campaignId)}>Back to the sites</LinkButton>
-        </div>
-      </div>
+      <NotFoundHere title="Site not found" backHref={paths.sites(campaignId)}>
+        It may have been deleted, or it is not on this device yet.
+      </NotFoundHere>
     );
   const mine = current === site.id;
   const choose = (id: string | null) => {

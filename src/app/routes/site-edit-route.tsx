@@ -4,11 +4,10 @@ import { AttachmentPanel } from "../../features/attachments/components/attachmen
 import { DeleteSiteControl } from "../../features/sites/components/delete-site-control";
 import { EditSiteForm } from "../../features/sites/components/edit-site-form";
 import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
-import { LinkButton } from "../../components/button";
 import { Loading } from "../../components/loading";
-import { Notice } from "../../components/notice";
 import { PageHeader } from "../../components/page-header";
 import { useCampaign } from "../layouts/campaign-layout";
+import { NotFoundHere } from "../not-found-here";
 import { paths } from "../paths";
 import { NotAllowed } from "../not-allowed";
 import type { SavedState } from "./sites-route";
@@ -26,14 +25,9 @@ export function SiteEditRoute() {
   if (site === undefined) return <Loading label="Reading the site on this device…" />;
   if (site === null) {
     return (
-      <div className="flex flex-col gap-4">
-        <Notice tone="attention" title="Site not found">
-          It may have been deleted, or it is not on this device yet.
-        </Notice>
-        <div>
-          <LinkButton to={back}>Back to the sites</LinkButton>
-        </div>
-      </div>
+      <NotFoundHere title="Site not found" backHref={back}>
+        It may have been deleted, or it is not on this device yet.
+      </NotFoundHere>
     );
   }
   const onSaved = (name: string, changed: boolean) => {

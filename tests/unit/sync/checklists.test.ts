@@ -14,7 +14,7 @@ import { findChecklistRun, listChecklistRuns } from "../../../src/db/queries";
 import { addFieldEntryLocally } from "../../../src/db/field-entry-store";
 import { writeMeta } from "../../../src/db/meta";
 import { authorNameKey } from "../../../src/db/outbox";
-import { newDb } from "../../helpers/fake-sync";
+import { localSiteAndCrate, newDb } from "../../helpers/fake-sync";
 
 const campaignId = crypto.randomUUID();
 const siteId = crypto.randomUUID();
@@ -98,35 +98,10 @@ describe("checklists on the tablet", () => {
   it("keeps an unpacking checklist open until a dew-point check for it passed or was overridden", async () => {
     const db = await withTemplate();
     await db.checklistTemplates.update(templateId, { purpose: "unpacking" });
-    await db.sites.put({
-      id: siteId,
-      campaignId,
-      name: "Ridge hut",
-      kind: "mountain",
-      latitudeDeg: 47,
-      longitudeDeg: 11,
-      approxHeightM: 2870,
-      notes: "",
-      version: 1,
-      updatedAt: "2027-06-01T00:00:00.000Z",
-      updatedBy: null,
-      deletedAt: null,
-      pendingChanges: 0,
-    });
     const crateId = crypto.randomUUID();
-    await db.crates.put({
-      id: crateId,
-      campaignId,
-      label: "KR-03",
-      contents: "Cavity",
-      weightKg: 35,
-      maxShockG: 15,
-      temperatureMinC: 18,
-      temperatureMaxC: 25,
-      notes: "",
-      version: 1,
-      updatedAt: "2027-06-01T00:00:00.000Z",
-    });
+    const { site, crate } = localSiteAndCrate(campaignId, siteId, crateId);
+    await db.sites.put(site);
+    await db.crates.put(crate);
     await writeMeta(db, authorNameKey, "Ada Field");
     const runId = await startChecklistLocally(db, campaignId, templateId, siteId);
     await recordResultLocally(db, campaignId, runId, "room-temp", 21);

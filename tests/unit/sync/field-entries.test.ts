@@ -2,7 +2,6 @@
 // name when wrong, an import written whole or not at all, large imports pushed in several bodies,
 // and pulled entries, crates and levelling records landing in their working copies.
 import { describe, expect, it } from "vitest";
-import type { CrateView } from "../../../shared/schemas/crates";
 import type { FieldEntryView } from "../../../shared/schemas/field-entries";
 import { fieldEntryLimits } from "../../../shared/schemas/field-entries";
 import type { OutboxEntry } from "../../../src/db/database";
@@ -12,42 +11,16 @@ import { authorNameKey } from "../../../src/db/outbox";
 import { writeMeta } from "../../../src/db/meta";
 import { applyPulledPage } from "../../../src/sync/apply-pull";
 import { batches, pushBudgetChars } from "../../../src/sync/engine";
-import { newDb } from "../../helpers/fake-sync";
+import { localSiteAndCrate, newDb } from "../../helpers/fake-sync";
 
 const campaignId = crypto.randomUUID();
 const siteId = crypto.randomUUID();
-const crate: CrateView = {
-  id: crypto.randomUUID(),
-  campaignId,
-  label: "KR-03",
-  contents: "Cavity",
-  weightKg: 35,
-  maxShockG: 15,
-  temperatureMinC: 18,
-  temperatureMaxC: 25,
-  notes: "",
-  version: 1,
-  updatedAt: "2027-06-01T00:00:00.000Z",
-};
+const { site, crate } = localSiteAndCrate(campaignId, siteId, crypto.randomUUID());
 const at = (minute: number) => new Date(Date.UTC(2027, 5, 2, 8, minute)).toISOString();
 
 async function siteWithCrate() {
   const db = newDb();
-  await db.sites.put({
-    id: siteId,
-    campaignId,
-    name: "Ridge hut",
-    kind: "mountain",
-    latitudeDeg: 47,
-    longitudeDeg: 11,
-    approxHeightM: 2870,
-    notes: "",
-    version: 1,
-    updatedAt: at(0),
-    updatedBy: null,
-    deletedAt: null,
-    pendingChanges: 0,
-  });
+  await db.sites.put(site);
   await db.crates.put(crate);
   await writeMeta(db, authorNameKey, "Ada Field");
   return db;

@@ -32,10 +32,7 @@ export function SiteChecklists({ campaignId, siteId, canRecord, runHref }: SiteC
   };
 
   return (
-    <section
-      aria-labelledby="site-checklists"
-      className="mt-10 flex flex-col gap-4 border-t-2 border-line pt-6"
-    >
+    <section aria-labelledby="site-checklists" className="flex flex-col gap-3">
       <h2 id="site-checklists" className="text-xl font-semibold">
         Checklists
       </h2>

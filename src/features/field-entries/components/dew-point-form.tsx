@@ -3,17 +3,13 @@
 // against the check needs a reason, which is kept with the entry.
 import { useState } from "react";
 import { dewPointVerdict } from "../../../../shared/field-entries";
-import type { EntryFlags } from "../../../../shared/schemas/field-entries";
 import { TextAreaField, TextField } from "../../../components/form-field";
 import { Notice } from "../../../components/notice";
-import { CrateField, EntryFormFrame, typedNumber, useSaveEntry } from "./entry-form-parts";
+import { EntryFormFrame, type EntryFormProps, typedNumber, useSaveEntry } from "./entry-form-parts";
 
-interface Props {
-  campaignId: string;
-  siteId: string;
+interface Props extends EntryFormProps {
   /** The unpacking checklist this check clears, when it was started from one. */
   runId: string | null;
-  onSaved: (id: string, flags: EntryFlags) => void;
 }
 
 const c = (v: number) => `${v.toFixed(1)} °C`;
@@ -52,7 +48,8 @@ function Verdict({ room, humidity, surface, margin }: Record<string, number>) {
 }
 
 export function DewPointForm({ campaignId, siteId, runId, onSaved }: Props) {
-  const { errors, failure, saving, save } = useSaveEntry(campaignId, onSaved);
+  const form = useSaveEntry(campaignId, onSaved);
+  const { errors, save } = form;
   const [crateId, setCrateId] = useState("");
   const [room, setRoom] = useState("");
   const [humidity, setHumidity] = useState("");
@@ -103,17 +100,11 @@ export function DewPointForm({ campaignId, siteId, runId, onSaved }: Props) {
     <EntryFormFrame
       label="Dew-point check"
       submitLabel="Save check"
-      saving={saving}
-      failure={failure}
+      campaignId={campaignId}
+      state={form}
+      crate={{ value: crateId, onChange: setCrateId, required: true }}
       onSubmit={() => void submit()}
     >
-      <CrateField
-        campaignId={campaignId}
-        value={crateId}
-        onChange={setCrateId}
-        required
-        error={errors.crateId}
-      />
       <div className="grid gap-4 sm:grid-cols-2">
         {number("Room temperature", "°C", room, setRoom, "roomTemperatureC")}
         {number("Room relative humidity", "%", humidity, setHumidity, "roomHumidityPct")}

@@ -12,6 +12,13 @@ import { useCrates, useEntryWrites } from "../hooks/use-field-entries";
 
 export type FieldErrors = Record<string, string>;
 
+/** What every entry form is given by its route. */
+export interface EntryFormProps {
+  campaignId: string;
+  siteId: string;
+  onSaved: (id: string, flags: EntryFlags) => void;
+}
+
 export function useSaveEntry(campaignId: string, onSaved: (id: string, flags: EntryFlags) => void) {
   const writes = useEntryWrites(campaignId);
   const [errors, setErrors] = useState<FieldErrors>({});
@@ -75,13 +82,17 @@ export function CrateField({ campaignId, value, onChange, required, error }: Cra
 interface EntryFormFrameProps {
   label: string;
   submitLabel: string;
-  saving: boolean;
-  failure: string | null;
+  campaignId: string;
+  state: Pick<ReturnType<typeof useSaveEntry>, "errors" | "failure" | "saving">;
+  /** The crate the entry is about, chosen first. */
+  crate: { value: string; onChange: (crateId: string) => void; required: boolean };
   onSubmit: () => void;
   children: ReactNode;
 }
 
+/** The crate choice, the kind's own fields, what went wrong and the save button. */
 export function EntryFormFrame(props: EntryFormFrameProps) {
+  const { errors, failure, saving } = props.state;
   const submit = (event: FormEvent) => {
     event.preventDefault();
     props.onSubmit();
@@ -93,15 +104,16 @@ export function EntryFormFrame(props: EntryFormFrameProps) {
       onSubmit={submit}
       className="flex max-w-2xl flex-col gap-5"
     >
+      <CrateField campaignId={props.campaignId} {...props.crate} error={errors.crateId} />
       {props.children}
-      {props.failure !== null && (
+      {failure !== null && (
         <Notice tone="danger" title="Not saved" live>
-          {props.failure}
+          {failure}
         </Notice>
       )}
       <div>
-        <Button type="submit" tone="primary" disabled={props.saving}>
-          {props.saving ? "Saving…" : props.submitLabel}
+        <Button type="submit" tone="primary" disabled={saving}>
+          {saving ? "Saving…" : props.submitLabel}
         </Button>
       </div>
     </form>

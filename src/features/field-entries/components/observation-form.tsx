@@ -1,17 +1,11 @@
 // A free observation at the site, about a crate or about nothing in particular.
 import { useState } from "react";
-import type { EntryFlags } from "../../../../shared/schemas/field-entries";
 import { TextAreaField } from "../../../components/form-field";
-import { CrateField, EntryFormFrame, useSaveEntry } from "./entry-form-parts";
+import { EntryFormFrame, type EntryFormProps, useSaveEntry } from "./entry-form-parts";
 
-interface Props {
-  campaignId: string;
-  siteId: string;
-  onSaved: (id: string, flags: EntryFlags) => void;
-}
-
-export function ObservationForm({ campaignId, siteId, onSaved }: Props) {
-  const { errors, failure, saving, save } = useSaveEntry(campaignId, onSaved);
+export function ObservationForm({ campaignId, siteId, onSaved }: EntryFormProps) {
+  const form = useSaveEntry(campaignId, onSaved);
+  const { errors, save } = form;
   const [crateId, setCrateId] = useState("");
   const [text, setText] = useState("");
   const submit = () =>
@@ -25,17 +19,11 @@ export function ObservationForm({ campaignId, siteId, onSaved }: Props) {
     <EntryFormFrame
       label="Observation"
       submitLabel="Save observation"
-      saving={saving}
-      failure={failure}
+      campaignId={campaignId}
+      state={form}
+      crate={{ value: crateId, onChange: setCrateId, required: false }}
       onSubmit={() => void submit()}
     >
-      <CrateField
-        campaignId={campaignId}
-        value={crateId}
-        onChange={setCrateId}
-        required={false}
-        error={errors.crateId}
-      />
       <TextAreaField
         label="What did you see?"
         value={text}

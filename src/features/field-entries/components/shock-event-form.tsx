@@ -1,18 +1,17 @@
 // One shock-logger event typed from the logger's display: peak per axis and pulse duration.
 import { useState } from "react";
-import type { EntryFlags } from "../../../../shared/schemas/field-entries";
 import { TextField } from "../../../components/form-field";
-import { CrateField, EntryFormFrame, optionalNumber, useSaveEntry } from "./entry-form-parts";
+import {
+  EntryFormFrame,
+  type EntryFormProps,
+  optionalNumber,
+  useSaveEntry,
+} from "./entry-form-parts";
 import { fromLocalInput, LocalTimeField, toLocalInput } from "./local-time-field";
 
-interface Props {
-  campaignId: string;
-  siteId: string;
-  onSaved: (id: string, flags: EntryFlags) => void;
-}
-
-export function ShockEventForm({ campaignId, siteId, onSaved }: Props) {
-  const { errors, failure, saving, save } = useSaveEntry(campaignId, onSaved);
+export function ShockEventForm({ campaignId, siteId, onSaved }: EntryFormProps) {
+  const form = useSaveEntry(campaignId, onSaved);
+  const { errors, save } = form;
   const [crateId, setCrateId] = useState("");
   const [time, setTime] = useState(() => toLocalInput(new Date()));
   const [peaks, setPeaks] = useState({ x: "", y: "", z: "" });
@@ -58,17 +57,11 @@ export function ShockEventForm({ campaignId, siteId, onSaved }: Props) {
     <EntryFormFrame
       label="Shock logger event"
       submitLabel="Save event"
-      saving={saving}
-      failure={failure}
+      campaignId={campaignId}
+      state={form}
+      crate={{ value: crateId, onChange: setCrateId, required: true }}
       onSubmit={() => void submit()}
     >
-      <CrateField
-        campaignId={campaignId}
-        value={crateId}
-        onChange={setCrateId}
-        required
-        error={errors.crateId}
-      />
       <LocalTimeField
         label="Time of the event"
         value={time}

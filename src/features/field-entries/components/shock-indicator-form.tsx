@@ -1,23 +1,17 @@
 // A shock indicator as read on the crate: its rating and whether it has tripped.
 import { useState } from "react";
-import type { EntryFlags } from "../../../../shared/schemas/field-entries";
 import { TextField } from "../../../components/form-field";
 import {
-  CrateField,
   EntryFormFrame,
+  type EntryFormProps,
   typedNumber,
   useSaveEntry,
   YesNoField,
 } from "./entry-form-parts";
 
-interface Props {
-  campaignId: string;
-  siteId: string;
-  onSaved: (id: string, flags: EntryFlags) => void;
-}
-
-export function ShockIndicatorForm({ campaignId, siteId, onSaved }: Props) {
-  const { errors, failure, saving, save } = useSaveEntry(campaignId, onSaved);
+export function ShockIndicatorForm({ campaignId, siteId, onSaved }: EntryFormProps) {
+  const form = useSaveEntry(campaignId, onSaved);
+  const { errors, save } = form;
   const [crateId, setCrateId] = useState("");
   const [rating, setRating] = useState("");
   const [tripped, setTripped] = useState<boolean | null>(null);
@@ -41,17 +35,11 @@ export function ShockIndicatorForm({ campaignId, siteId, onSaved }: Props) {
     <EntryFormFrame
       label="Shock indicator"
       submitLabel="Save reading"
-      saving={saving}
-      failure={failure}
+      campaignId={campaignId}
+      state={form}
+      crate={{ value: crateId, onChange: setCrateId, required: true }}
       onSubmit={() => void submit()}
     >
-      <CrateField
-        campaignId={campaignId}
-        value={crateId}
-        onChange={setCrateId}
-        required
-        error={errors.crateId}
-      />
       <TextField
         label="Rating"
         unit="g"

@@ -45,7 +45,11 @@ interface ManualReadingFormProps {
 
 export function ManualReadingForm({ campaignId, siteId, crateId }: ManualReadingFormProps) {
   const writes = useTemperatureWrites(campaignId);
-  const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
+  const [message, setMessage] = useState<{
+    ok: boolean;
+    text: string;
+    exceeded?: boolean;
+  } | null>(null);
   const { register, handleSubmit, formState, reset, control } = useForm<
     ReadingFormValues,
     unknown,
@@ -68,7 +72,11 @@ export function ManualReadingForm({ campaignId, siteId, crateId }: ManualReading
         humidityPct: values.humidityPct,
         note: values.note,
       });
-      setMessage({ ok: true, text: result?.flags.summary ?? "" });
+      setMessage({
+        ok: true,
+        text: result?.flags.summary ?? "",
+        exceeded: result?.flags.exceeded ?? false,
+      });
       reset({ localTime: toLocalInput(new Date()), note: "" });
     } catch (error) {
       setMessage({ ok: false, text: messageOf(error) });
@@ -113,7 +121,7 @@ export function ManualReadingForm({ campaignId, siteId, crateId }: ManualReading
       <TextAreaField label="Note (optional)" error={errors.note?.message} {...register("note")} />
       {message !== null &&
         (message.ok ? (
-          <Notice title="Saved on this device" live>
+          <Notice tone={message.exceeded ? "danger" : "info"} title="Saved on this device" live>
             {message.text}
           </Notice>
         ) : (

@@ -50,6 +50,8 @@ function options(UPlot: typeof uPlot, widthPx: number, band: TemperatureBand): u
     height: heightPx,
     tzDate: (ts) => UPlot.tzDate(new Date(ts * 1000), "Etc/UTC"),
     scales: { x: { time: true } },
+    // Room on the right for the last time label, which is centred on its tick.
+    padding: [12, 40, 0, 0],
     cursor: { points: { size: 10 } },
     legend: { live: true },
     axes: [
