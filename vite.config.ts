@@ -49,6 +49,9 @@ export default defineConfig({
       },
       workbox: {
         globPatterns: ["**/*.{js,mjs,css,html,woff2,svg,png,webmanifest}"],
+        // maplibre's worker (about 0.6 MB) and main chunk (about 1 MB) must be precached for the
+        // map to open offline.
+        maximumFileSizeToCacheInBytes: 4 * 1024 * 1024,
         navigateFallback: "/index.html",
         // API calls must reach the network (or fail): never answer them with the app shell.
         navigateFallbackDenylist: [/^\/api(\/|$)/],
@@ -75,6 +78,11 @@ export default defineConfig({
             },
             // Loaded on demand by the temperature chart: keep it out of the catch-all group.
             { name: "uplot", test: /node_modules[\\/]uplot[\\/]/ },
+            // Loaded on demand by the map screen, with its bundled outlines.
+            {
+              name: "maplibre",
+              test: /node_modules[\\/](maplibre-gl|world-atlas|topojson-client)[\\/]/,
+            },
             { name: "vendor", test: /node_modules[\\/]/ },
           ],
         },

@@ -122,7 +122,11 @@ export function createApp({
       storage,
     }),
   );
-  api.use("/sync", authenticate(tokens), syncRouter(db));
+  api.use(
+    "/sync",
+    authenticate(tokens),
+    syncRouter(db, linkBase ?? (() => publicUrl(config)), onMailQueued),
+  );
   api.use(apiNotFound);
   app.use("/api", api);
 

@@ -14,10 +14,22 @@ export const actions = [
   "entry.record",
   "levelling.record",
   "checklist.template.write",
+  "crate.manage",
+  "leg.plan",
+  "leg.record",
+  "handover.record",
+  "alert.acknowledge",
 ] as const;
 export type Action = (typeof actions)[number];
 
 const table: Record<Action, readonly Role[]> = {
+  // Logistics keeps the crates and plans their journeys (DESIGN.md §6).
+  "crate.manage": ["logistics", "admin"],
+  "leg.plan": ["logistics", "admin"],
+  // Departures, arrivals and handovers are recorded by whoever is with the crate.
+  "leg.record": ["field", "logistics", "admin"],
+  "handover.record": ["field", "logistics", "admin"],
+  "alert.acknowledge": ["logistics", "admin"],
   "campaign.read": roles,
   "site.write": ["field", "logistics", "geodesist", "admin"],
   "site.delete": ["logistics", "geodesist", "admin"],

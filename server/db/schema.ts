@@ -22,6 +22,7 @@ import { attachmentSubjectKinds } from "../../shared/schemas/attachments";
 import { checklistPurposes } from "../../shared/schemas/checklists";
 import { fieldEntryKinds } from "../../shared/schemas/field-entries";
 import { levellingRuns } from "../../shared/schemas/levelling";
+import { crateStates, handoverConditions } from "../../shared/schemas/logistics";
 import { siteKinds } from "../../shared/schemas/sites";
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
@@ -173,11 +174,14 @@ export const emailOutbox = pgTable(
     nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
     sentAt: timestamp("sent_at", { withTimezone: true }),
     lastError: text("last_error"),
+    /** Set for messages that must be queued once only (e.g. `alert:<alert>:<user>`). */
+    messageKey: text("message_key"),
   },
   (t) => [
     index("email_outbox_due_idx")
       .on(t.nextAttemptAt)
       .where(sql`${t.sentAt} is null`),
+    uniqueIndex("email_outbox_message_key").on(t.messageKey),
   ],
 );
 
@@ -364,6 +368,8 @@ export const checklistResults = pgTable(
   ],
 );
 
+export const crateStateEnum = pgEnum("crate_state", crateStates);
+
 export const crates = pgTable(
   "crates",
   {
@@ -376,6 +382,9 @@ export const crates = pgTable(
     temperatureMinC: doublePrecision("temperature_min_c").notNull(),
     temperatureMaxC: doublePrecision("temperature_max_c").notNull(),
     notes: text("notes").notNull().default(""),
+    instrument: text("instrument").notNull().default(""),
+    maxTiltDeg: doublePrecision("max_tilt_deg"),
+    state: crateStateEnum("state").notNull().default("ready"),
     version: integer("version").notNull().default(1),
     changeSeq: changeSeq(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
@@ -494,5 +503,93 @@ export const levellingSetups = pgTable(
   (t) => [
     index("levelling_setups_change_idx").on(t.campaignId, t.changeSeq),
     index("levelling_setups_section_idx").on(t.sectionId),
+  ],
+);
+
+/** A crate's movement from one place (a site of the campaign) to another: planned, then its steps. */
+export const legs = pgTable(
+  "legs",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: campaignRef(),
+    crateId: uuid("crate_id")
+      .notNull()
+      .references(() => crates.id),
+    fromSiteId: uuid("from_site_id")
+      .notNull()
+      .references(() => sites.id),
+    toSiteId: uuid("to_site_id")
+      .notNull()
+      .references(() => sites.id),
+    vehicle: text("vehicle").notNull().default(""),
+    plannedDepartAt: timestamp("planned_depart_at", { withTimezone: true }).notNull(),
+    plannedArriveAt: timestamp("planned_arrive_at", { withTimezone: true }).notNull(),
+    departedAt: timestamp("departed_at", { withTimezone: true }),
+    departedBy: userRef("departed_by"),
+    arrivedAt: timestamp("arrived_at", { withTimezone: true }),
+    arrivedBy: userRef("arrived_by"),
+    cancelledAt: timestamp("cancelled_at", { withTimezone: true }),
+    cancelledBy: userRef("cancelled_by"),
+    note: text("note").notNull().default(""),
+    createdBy: userRef("created_by"),
+    createdAt: createdAt(),
+    changeSeq: changeSeq(),
+  },
+  (t) => [
+    index("legs_change_idx").on(t.campaignId, t.changeSeq),
+    index("legs_crate_idx").on(t.crateId),
+  ],
+);
+
+export const handoverConditionEnum = pgEnum("handover_condition", handoverConditions);
+
+/** Append-only: custody of a crate passing from one person to the next, in time order per crate. */
+export const handovers = pgTable(
+  "handovers",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: campaignRef(),
+    crateId: uuid("crate_id")
+      .notNull()
+      .references(() => crates.id),
+    legId: uuid("leg_id").references(() => legs.id),
+    fromName: text("from_name").notNull(),
+    /** The receiver's name as they typed it: their signature. */
+    toName: text("to_name").notNull(),
+    at: timestamp("at", { withTimezone: true }).notNull(),
+    siteId: uuid("site_id").references(() => sites.id),
+    place: text("place").notNull().default(""),
+    condition: handoverConditionEnum("condition").notNull(),
+    note: text("note").notNull().default(""),
+    recordedBy: userRef("recorded_by"),
+    recordedAt: timestamp("recorded_at", { withTimezone: true }).notNull(),
+    changeSeq: changeSeq(),
+  },
+  (t) => [
+    index("handovers_change_idx").on(t.campaignId, t.changeSeq),
+    index("handovers_crate_idx").on(t.crateId, t.at),
+  ],
+);
+
+/** An entry beyond its crate's limits, raised once per entry, until someone acknowledges it. */
+export const alerts = pgTable(
+  "alerts",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    campaignId: campaignRef(),
+    crateId: uuid("crate_id").references(() => crates.id),
+    siteId: uuid("site_id").references(() => sites.id),
+    entryId: uuid("entry_id").references(() => fieldEntries.id),
+    kind: text("kind").notNull(),
+    summary: text("summary").notNull(),
+    createdAt: createdAt(),
+    acknowledgedAt: timestamp("acknowledged_at", { withTimezone: true }),
+    acknowledgedBy: userRef("acknowledged_by"),
+    acknowledgeNote: text("acknowledge_note").notNull().default(""),
+    changeSeq: changeSeq(),
+  },
+  (t) => [
+    index("alerts_change_idx").on(t.campaignId, t.changeSeq),
+    uniqueIndex("alerts_entry_key").on(t.entryId),
   ],
 );

@@ -1,9 +1,16 @@
-// Sends the e-mail outbox. A message is marked sent in the same transaction that claimed it, so a
-// crash before the commit means it is sent again (at least once); SMTP failures retry with backoff.
+// Sends the e-mail outbox, one message per transaction: claim it (SKIP LOCKED), send it, mark it
+// sent, commit. A crash between the SMTP hand-over and the commit sends it again (at least once),
+// under the same Message-ID so the resend is recognisable; SMTP failures retry with backoff. One
+// message per transaction keeps a database failure from re-sending a whole batch.
 import nodemailer, { type Transporter } from "nodemailer";
 import type { Logger } from "pino";
 import type { Db } from "../db/client";
-import { claimDueEmails, markEmailFailed, markEmailSent } from "../db/repositories/outbox";
+import {
+  claimDueEmails,
+  markEmailFailed,
+  markEmailSent,
+  outboxMessageId,
+} from "../db/repositories/outbox";
 
 export interface MailWorker {
   /** Sends what is due now; resolves with how many were sent. */
@@ -12,6 +19,7 @@ export interface MailWorker {
   stop: () => Promise<void>;
 }
 
+const batchSize = 20;
 const retryDelayS = (attempts: number) => Math.min(3600, 5 * 2 ** Math.min(attempts, 10));
 
 export function createMailWorker(
@@ -25,27 +33,39 @@ export function createMailWorker(
   let running: Promise<number> | undefined;
   let stopped = false;
 
-  const drainOnce = async (): Promise<number> =>
+  type Outcome = "none" | "sent" | "failed";
+  const sendOne = (): Promise<Outcome> =>
     db.transaction(async (tx) => {
-      let sent = 0;
-      for (const email of await claimDueEmails(tx, 20)) {
-        try {
-          await transport.sendMail({
-            from,
-            to: email.toAddress,
-            subject: email.subject,
-            text: email.textBody,
-          });
-          await markEmailSent(tx, email.id);
-          sent += 1;
-        } catch (error) {
-          const attempts = email.attempts + 1;
-          log.warn({ emailId: email.id, attempts, err: error }, "e-mail not sent, will retry");
-          await markEmailFailed(tx, email.id, attempts, String(error), retryDelayS(attempts));
-        }
+      const [email] = await claimDueEmails(tx, 1);
+      if (!email) return "none";
+      try {
+        await transport.sendMail({
+          from,
+          to: email.toAddress,
+          subject: email.subject,
+          text: email.textBody,
+          messageId: outboxMessageId(email.id),
+        });
+      } catch (error) {
+        const attempts = email.attempts + 1;
+        log.warn({ emailId: email.id, attempts, err: error }, "e-mail not sent, will retry");
+        await markEmailFailed(tx, email.id, attempts, String(error), retryDelayS(attempts));
+        return "failed";
       }
-      return sent;
+      await markEmailSent(tx, email.id);
+      return "sent";
     });
+
+  // A failed message is due again only after its backoff, so it is not claimed twice in one drain.
+  const drainOnce = async (): Promise<number> => {
+    let sent = 0;
+    for (let i = 0; i < batchSize; i += 1) {
+      const outcome = await sendOne();
+      if (outcome === "none") break;
+      if (outcome === "sent") sent += 1;
+    }
+    return sent;
+  };
 
   const drain = async () => {
     running ??= drainOnce().finally(() => (running = undefined));

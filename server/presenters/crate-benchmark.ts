@@ -12,8 +12,12 @@ export const presentCrate = (row: CrateRow): CrateView => ({
   temperatureMinC: row.temperatureMinC,
   temperatureMaxC: row.temperatureMaxC,
   notes: row.notes,
+  instrument: row.instrument,
+  maxTiltDeg: row.maxTiltDeg,
+  state: row.state,
   version: row.version,
   updatedAt: row.updatedAt.toISOString(),
+  deletedAt: row.deletedAt?.toISOString() ?? null,
 });
 
 export const presentBenchmark = (row: BenchmarkRow): BenchmarkView => ({

@@ -3,6 +3,8 @@
 export const demoCrates = [
   {
     label: "KR-01",
+    instrument: "Transportable clock EQ-T1: physics package",
+    state: "ready" as const,
     contents: "Physics package with vacuum system and ion pump",
     weightKg: 62,
     maxShockG: 30,
@@ -12,6 +14,8 @@ export const demoCrates = [
   },
   {
     label: "KR-02",
+    instrument: "Transportable clock EQ-T1: lasers",
+    state: "ready" as const,
     contents: "Laser rack (cooling, repump, clock laser)",
     weightKg: 48,
     maxShockG: 25,
@@ -21,6 +25,8 @@ export const demoCrates = [
   },
   {
     label: "KR-03",
+    instrument: "Transportable clock EQ-T1: reference cavity",
+    state: "ready" as const,
     contents: "Ultra-stable optical cavity",
     weightKg: 35,
     maxShockG: 15,
@@ -30,6 +36,8 @@ export const demoCrates = [
   },
   {
     label: "KR-04",
+    instrument: "Transportable clock EQ-T1: electronics and comb",
+    state: "ready" as const,
     contents: "Control electronics and frequency comb",
     weightKg: 41,
     maxShockG: 40,
@@ -39,12 +47,36 @@ export const demoCrates = [
   },
   {
     label: "KR-05",
+    instrument: "Transportable clock EQ-T1: power",
+    state: "ready" as const,
     contents: "UPS with lithium-ion batteries",
     weightKg: 55,
     maxShockG: 50,
     temperatureMinC: 0,
     temperatureMaxC: 35,
     notes: "Dangerous goods in transport: follow the carrier's lithium battery rules.",
+  },
+];
+
+/** Two planned journeys out of the laboratory (sites and crates by name); nothing recorded yet. */
+export const demoLegs = [
+  {
+    crateLabel: "KR-01",
+    from: "Brennmoor reference laboratory",
+    to: "Kestrel Ridge hut",
+    vehicle: "Air-sprung van, then the cable car",
+    plannedDepartAt: "2027-06-02T06:00:00.000Z",
+    plannedArriveAt: "2027-06-03T14:30:00.000Z",
+    note: "Overnight stop at the valley depot; crate stays in the heated van.",
+  },
+  {
+    crateLabel: "KR-03",
+    from: "Brennmoor reference laboratory",
+    to: "Saltmere tide station",
+    vehicle: "Air-sprung van",
+    plannedDepartAt: "2027-06-21T05:30:00.000Z",
+    plannedArriveAt: "2027-06-21T13:00:00.000Z",
+    note: "",
   },
 ];
 

@@ -11,12 +11,13 @@ import {
   campaigns,
   checklistTemplates,
   crates,
+  legs,
   memberships,
   sites,
   users,
 } from "../db/schema";
 import { demoChecklists } from "./demo-checklists";
-import { demoBenchmarks, demoCrates } from "./demo-scenario";
+import { demoBenchmarks, demoCrates, demoLegs } from "./demo-scenario";
 import { hashPassword } from "../services/passwords";
 
 export const demoPassword = "equipot-demo";
@@ -107,22 +108,47 @@ export async function seedDemo(db: Db, nodeEnv: string): Promise<boolean> {
       await tx
         .insert(memberships)
         .values({ campaignId: practice.id, userId: admin.id, role: "admin" });
+    const siteIds = new Map<string, string>();
     for (const site of demoSites) {
       const changeSeq = await nextChangeSeq(tx, campaign.id);
       const id = crypto.randomUUID();
+      siteIds.set(site.name, id);
       await tx
         .insert(sites)
         .values({ ...site, id, campaignId: campaign.id, updatedBy: admin?.id ?? null, changeSeq });
     }
     const updatedBy = admin?.id ?? null;
+    const crateIds = new Map<string, string>();
     for (const crate of demoCrates) {
       const changeSeq = await nextChangeSeq(tx, campaign.id);
+      const id = crypto.randomUUID();
+      crateIds.set(crate.label, id);
       await tx.insert(crates).values({
         ...crate,
-        id: crypto.randomUUID(),
+        id,
         campaignId: campaign.id,
         updatedBy,
         changeSeq,
+      });
+    }
+    const planner = people.find((p) => p.email.startsWith("logistics@"));
+    for (const leg of demoLegs) {
+      const crateId = crateIds.get(leg.crateLabel);
+      const fromSiteId = siteIds.get(leg.from);
+      const toSiteId = siteIds.get(leg.to);
+      if (!crateId || !fromSiteId || !toSiteId) throw new Error(`demo leg of ${leg.crateLabel}`);
+      await tx.insert(legs).values({
+        id: crypto.randomUUID(),
+        campaignId: campaign.id,
+        crateId,
+        fromSiteId,
+        toSiteId,
+        vehicle: leg.vehicle,
+        plannedDepartAt: new Date(leg.plannedDepartAt),
+        plannedArriveAt: new Date(leg.plannedArriveAt),
+        note: leg.note,
+        createdBy: planner?.id ?? null,
+        changeSeq: await nextChangeSeq(tx, campaign.id),
       });
     }
     for (const template of demoChecklists) {

@@ -50,6 +50,7 @@ export const attachmentSubjectKinds = [
   "checklistRun",
   "fieldEntry",
   "levellingSection",
+  "handover",
 ] as const;
 export const attachmentSubjectKind = z.enum(attachmentSubjectKinds);
 export type AttachmentSubjectKind = z.infer<typeof attachmentSubjectKind>;

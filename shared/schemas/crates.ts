@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { crateState } from "./logistics";
 
 export const crateView = z.object({
   id: z.uuid(),
@@ -10,7 +11,12 @@ export const crateView = z.object({
   temperatureMinC: z.number(),
   temperatureMaxC: z.number(),
   notes: z.string(),
+  // Defaults keep pulls from servers before these fields readable.
+  instrument: z.string().default(""),
+  maxTiltDeg: z.number().nullable().default(null),
+  state: crateState.default("ready"),
   version: z.number().int(),
   updatedAt: z.string(),
+  deletedAt: z.string().nullable().default(null),
 });
 export type CrateView = z.infer<typeof crateView>;

@@ -20,6 +20,15 @@ import {
   levellingSetupInput,
   levellingSetupView,
 } from "../schemas/levelling";
+import {
+  alertAcknowledgeInput,
+  alertView,
+  handoverInput,
+  handoverView,
+  legPlanInput,
+  legStepInput,
+  legView,
+} from "../schemas/logistics";
 import { siteCreateInput, sitePatchSchema, siteView } from "../schemas/sites";
 
 export const protocolVersion = 1;
@@ -57,6 +66,14 @@ export const mutationSchemas = {
   "levelling.open": levellingOpenInput,
   "levelling.setup": levellingSetupInput,
   "levelling.close": levellingCloseInput,
+  // A leg is planned once and then departs, arrives or is cancelled, each once.
+  "leg.plan": legPlanInput,
+  "leg.depart": legStepInput,
+  "leg.arrive": legStepInput,
+  "leg.cancel": legStepInput,
+  // Handovers are append-only: the chain of custody only grows.
+  "handover.record": handoverInput,
+  "alert.acknowledge": alertAcknowledgeInput,
 } as const;
 
 export const mutationNames = Object.keys(mutationSchemas) as [
@@ -82,6 +99,12 @@ export const mutationActions: Record<MutationName, Action> = {
   "levelling.open": "levelling.record",
   "levelling.setup": "levelling.record",
   "levelling.close": "levelling.record",
+  "leg.plan": "leg.plan",
+  "leg.depart": "leg.record",
+  "leg.arrive": "leg.record",
+  "leg.cancel": "leg.plan",
+  "handover.record": "handover.record",
+  "alert.acknowledge": "alert.acknowledge",
 };
 
 export const mutationEnvelope = z.strictObject({
@@ -128,6 +151,9 @@ export const syncEntities = [
   "fieldEntry",
   "levellingSection",
   "levellingSetup",
+  "leg",
+  "handover",
+  "alert",
 ] as const;
 export const syncEntitySchema = z.enum(syncEntities);
 export type SyncEntity = z.infer<typeof syncEntitySchema>;
@@ -198,6 +224,14 @@ export const changeRecord = z.discriminatedUnion("entity", [
     id: z.uuid(),
     data: levellingSetupView,
   }),
+  z.object({ entity: z.literal("leg"), seq: z.number().int(), id: z.uuid(), data: legView }),
+  z.object({
+    entity: z.literal("handover"),
+    seq: z.number().int(),
+    id: z.uuid(),
+    data: handoverView,
+  }),
+  z.object({ entity: z.literal("alert"), seq: z.number().int(), id: z.uuid(), data: alertView }),
 ]);
 export type ChangeRecord = z.infer<typeof changeRecord>;
 

@@ -35,5 +35,20 @@ export const paths = {
   members: (campaignId: string) => `${campaign(campaignId)}/members`,
   checklistTemplates: (campaignId: string) => `${campaign(campaignId)}/checklist-templates`,
   conflicts: (campaignId: string) => `${campaign(campaignId)}/conflicts`,
+  map: (campaignId: string) => `${campaign(campaignId)}/map`,
+  crateLabel: (campaignId: string, crateId: string) =>
+    `${campaign(campaignId)}/crates/${encodeURIComponent(crateId)}/label`,
+  crates: (campaignId: string) => `${campaign(campaignId)}/crates`,
+  crate: (campaignId: string, crateId: string) =>
+    `${campaign(campaignId)}/crates/${encodeURIComponent(crateId)}`,
+  /** The handover form, with the crate chosen when one is given. */
+  handover: (campaignId: string, crateId?: string) =>
+    `${campaign(campaignId)}/crates/hand-over${
+      crateId === undefined ? "" : `?crate=${encodeURIComponent(crateId)}`
+    }`,
+  handoverRecord: (campaignId: string, handoverId: string) =>
+    `${campaign(campaignId)}/crates/handovers/${encodeURIComponent(handoverId)}`,
+  alerts: (campaignId: string) => `${campaign(campaignId)}/crates/alerts`,
+  logistics: (campaignId: string) => `${campaign(campaignId)}/logistics`,
   device: "/device",
 } as const;

@@ -24,6 +24,13 @@ import { EntryNewRoute } from "./routes/entry-new-route";
 import { EntryRoute } from "./routes/entry-route";
 import { EntryImportRoute } from "./routes/entry-import-route";
 import { TemperaturesRoute } from "./routes/temperatures-route";
+import { MapRoute } from "./routes/map-route";
+import { CrateLabelRoute } from "./routes/crate-label-route";
+import { CratesRoute } from "./routes/crates-route";
+import { CrateRoute } from "./routes/crate-route";
+import { HandoverRecordRoute, HandoverRoute } from "./routes/handover-route";
+import { AlertsRoute } from "./routes/alerts-route";
+import { LogisticsDashboardRoute } from "./routes/logistics-dashboard-route";
 
 /** The crew starts at their site's board; everyone else at the sites. */
 function CampaignIndex() {
@@ -75,6 +82,14 @@ export const router = createBrowserRouter([
               { path: "members", element: <MembersRoute /> },
               { path: "checklist-templates", element: <ChecklistTemplatesRoute /> },
               { path: "conflicts", element: <ConflictsRoute /> },
+              { path: "map", element: <MapRoute /> },
+              { path: "crates/:crateId/label", element: <CrateLabelRoute /> },
+              { path: "crates", element: <CratesRoute /> },
+              { path: "crates/hand-over", element: <HandoverRoute /> },
+              { path: "crates/handovers/:handoverId", element: <HandoverRecordRoute /> },
+              { path: "crates/alerts", element: <AlertsRoute /> },
+              { path: "crates/:crateId", element: <CrateRoute /> },
+              { path: "logistics", element: <LogisticsDashboardRoute /> },
             ],
           },
           { path: "*", element: <NotFoundRoute /> },

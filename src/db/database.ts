@@ -11,6 +11,7 @@ import type {
 import type { CrateView } from "../../shared/schemas/crates";
 import type { FieldEntryView } from "../../shared/schemas/field-entries";
 import type { LevellingSectionView, LevellingSetupView } from "../../shared/schemas/levelling";
+import type { AlertView, HandoverView, LegView } from "../../shared/schemas/logistics";
 import type { SiteView } from "../../shared/schemas/sites";
 import type { ConflictView, MutationName, MutationResult } from "../../shared/sync/protocol";
 
@@ -103,7 +104,25 @@ export type EquipotDb = Dexie & {
   levellingSections: EntityTable<LocalLevellingSection, "id">;
   serverLevellingSetups: EntityTable<LevellingSetupView, "id">;
   levellingSetups: EntityTable<LocalLevellingSetup, "id">;
+  serverLegs: EntityTable<LegView, "id">;
+  legs: EntityTable<LocalLeg, "id">;
+  serverHandovers: EntityTable<HandoverView, "id">;
+  handovers: EntityTable<LocalHandover, "id">;
+  serverAlerts: EntityTable<AlertView, "id">;
+  alerts: EntityTable<LocalAlert, "id">;
 };
+
+export interface LocalLeg extends LegView {
+  pending: boolean;
+}
+
+export interface LocalHandover extends HandoverView {
+  pending: boolean;
+}
+
+export interface LocalAlert extends AlertView {
+  pending: boolean;
+}
 
 export interface LocalFieldEntry extends FieldEntryView {
   pending: boolean;
@@ -176,6 +195,18 @@ export const schemaHistory: readonly { version: number; stores: Record<string, s
         levellingSections: "id, campaignId, siteId",
         serverLevellingSetups: "id, campaignId, sectionId",
         levellingSetups: "id, campaignId, sectionId",
+      },
+    },
+    {
+      version: 6,
+      // Logistics: legs, handovers (custody) and alerts, each with a working copy.
+      stores: {
+        serverLegs: "id, campaignId, crateId",
+        legs: "id, campaignId, crateId",
+        serverHandovers: "id, campaignId, crateId",
+        handovers: "id, campaignId, crateId",
+        serverAlerts: "id, campaignId, crateId",
+        alerts: "id, campaignId, crateId",
       },
     },
   ];

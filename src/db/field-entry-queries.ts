@@ -2,10 +2,12 @@
 import type { CrateView } from "../../shared/schemas/crates";
 import type { EquipotDb, LocalFieldEntry } from "./database";
 
-/** The campaign's crates by label. */
+/** The campaign's crates by label, deleted ones left out. */
 export async function listCrates(db: EquipotDb, campaignId: string): Promise<CrateView[]> {
   const crates = await db.crates.where("campaignId").equals(campaignId).toArray();
-  return crates.sort((a, b) => a.label.localeCompare(b.label, undefined, { numeric: true }));
+  return crates
+    .filter((c) => c.deletedAt === null)
+    .sort((a, b) => a.label.localeCompare(b.label, undefined, { numeric: true }));
 }
 
 /** A site's entries, newest observation first. */

@@ -6,6 +6,7 @@ import { rebuildChecklistResultViews, rebuildChecklistRunViews } from "./checkli
 import type { EquipotDb } from "./database";
 import { rebuildFieldEntryViews } from "./field-entry-view";
 import { rebuildLevellingSectionViews, rebuildLevellingSetupViews } from "./levelling-view";
+import { rebuildAlertViews, rebuildHandoverViews, rebuildLegViews } from "./logistics-view";
 import { rebuildSiteViews } from "./site-view";
 import type { ViewKind } from "./working-copy";
 
@@ -30,6 +31,12 @@ export const viewTables = (db: EquipotDb) => [
   db.levellingSections,
   db.serverLevellingSetups,
   db.levellingSetups,
+  db.serverLegs,
+  db.legs,
+  db.serverHandovers,
+  db.handovers,
+  db.serverAlerts,
+  db.alerts,
 ];
 
 export async function rebuildViews(db: EquipotDb, touched: Touched): Promise<void> {
@@ -40,4 +47,7 @@ export async function rebuildViews(db: EquipotDb, touched: Touched): Promise<voi
   await rebuildFieldEntryViews(db, touched.fieldEntries ?? []);
   await rebuildLevellingSectionViews(db, touched.levellingSections ?? []);
   await rebuildLevellingSetupViews(db, touched.levellingSetups ?? []);
+  await rebuildLegViews(db, touched.legs ?? []);
+  await rebuildHandoverViews(db, touched.handovers ?? []);
+  await rebuildAlertViews(db, touched.alerts ?? []);
 }

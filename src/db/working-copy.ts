@@ -11,7 +11,10 @@ export type ViewKind =
   | "checklistResults"
   | "fieldEntries"
   | "levellingSections"
-  | "levellingSetups";
+  | "levellingSetups"
+  | "legs"
+  | "handovers"
+  | "alerts";
 
 /** Which working copy a mutation changes (a conflict's choice belongs to its site). */
 export function viewKindOf(name: MutationName): ViewKind {
@@ -21,6 +24,9 @@ export function viewKindOf(name: MutationName): ViewKind {
   if (name === "entry.add") return "fieldEntries";
   if (name === "levelling.setup") return "levellingSetups";
   if (name.startsWith("levelling.")) return "levellingSections";
+  if (name.startsWith("leg.")) return "legs";
+  if (name.startsWith("handover.")) return "handovers";
+  if (name.startsWith("alert.")) return "alerts";
   return "sites";
 }
 

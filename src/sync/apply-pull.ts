@@ -20,6 +20,9 @@ const viewOf: Partial<Record<Entity, ViewKind>> = {
   fieldEntry: "fieldEntries",
   levellingSection: "levellingSections",
   levellingSetup: "levellingSetups",
+  leg: "legs",
+  handover: "handovers",
+  alert: "alerts",
 };
 
 export async function applyPulledPage(
@@ -38,6 +41,9 @@ export async function applyPulledPage(
     fieldEntry: [],
     levellingSection: [],
     levellingSetup: [],
+    leg: [],
+    handover: [],
+    alert: [],
   };
   // The union's data follows its entity; TypeScript cannot pair them through the index.
   for (const change of page.changes) (pulled[change.entity] as unknown[]).push(change.data);
@@ -49,6 +55,9 @@ export async function applyPulledPage(
     fieldEntries: new Set(),
     levellingSections: new Set(),
     levellingSetups: new Set(),
+    legs: new Set(),
+    handovers: new Set(),
+    alerts: new Set(),
   };
   for (const [entity, kind] of Object.entries(viewOf) as [Entity, ViewKind][])
     for (const record of pulled[entity]) touched[kind].add(record.id);
@@ -65,6 +74,9 @@ export async function applyPulledPage(
     await db.serverFieldEntries.bulkPut(pulled.fieldEntry);
     await db.serverLevellingSections.bulkPut(pulled.levellingSection);
     await db.serverLevellingSetups.bulkPut(pulled.levellingSetup);
+    await db.serverLegs.bulkPut(pulled.leg);
+    await db.serverHandovers.bulkPut(pulled.handover);
+    await db.serverAlerts.bulkPut(pulled.alert);
     // Confirm only on the last page: then every change of a confirmed mutation is already here,
     // so its record never drops out of the working copy between pages.
     if (page.lastMutationId !== null && !page.hasMore) {

@@ -46,8 +46,12 @@ export function localSiteAndCrate(campaignId: string, siteId: string, crateId: s
     temperatureMinC: 18,
     temperatureMaxC: 25,
     notes: "",
+    instrument: "",
+    maxTiltDeg: null,
+    state: "arrived",
     version: 1,
     updatedAt,
+    deletedAt: null,
   };
   return { site, crate };
 }

@@ -99,7 +99,7 @@ function magnusDewPoint(t: number, rh: number): number {
 }
 
 describe("field entries through sync", () => {
-  it("pulls the demo crates read-only, leaving out a deleted one", async () => {
+  it("pulls the demo crates, and a deleted one as a tombstone", async () => {
     expect(crates.map((c) => c.label).sort()).toEqual([
       "KR-01",
       "KR-02",
@@ -119,8 +119,13 @@ describe("field entries through sync", () => {
       changeSeq: await nextChangeSeq(db, campaignId),
     });
     const { changes } = await pullAll(ctx.app, token, campaignId);
-    expect(changes.some((c) => c.id === gone)).toBe(false);
-    expect(changes.filter((c) => c.entity === "crate")).toHaveLength(5);
+    const tombstone = changes.find((c) => c.id === gone);
+    expect(tombstone?.entity === "crate" && tombstone.data.deletedAt).toBe(
+      new Date(at).toISOString(),
+    );
+    expect(changes.filter((c) => c.entity === "crate" && c.data.deletedAt === null)).toHaveLength(
+      5,
+    );
   });
 
   it("applies every kind of entry and pulls it back with its author's name", async () => {

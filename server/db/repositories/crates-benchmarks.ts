@@ -22,18 +22,51 @@ export const findCrate = async (q: Queryable, campaignId: string, id: string) =>
       .limit(1)
   )[0];
 
-// Deleted crates are left out: the crate view has no tombstone yet (editing comes with logistics).
+/** Any campaign, deleted or not: the crate's row locked, so writes to it are ordered. */
+export const findCrateForUpdate = async (q: Queryable, campaignId: string, id: string) =>
+  (
+    await q
+      .select()
+      .from(crates)
+      .where(and(eq(crates.campaignId, campaignId), eq(crates.id, id)))
+      .for("update")
+      .limit(1)
+  )[0];
+
+/** Any campaign: a client-made id that already exists anywhere is refused. */
+export const crateIdTaken = async (q: Queryable, id: string) =>
+  (await q.select({ id: crates.id }).from(crates).where(eq(crates.id, id)).limit(1)).length > 0;
+
+export async function insertCrate(
+  q: Queryable,
+  row: typeof crates.$inferInsert,
+): Promise<CrateRow> {
+  const [inserted] = await q.insert(crates).values(row).returning();
+  if (!inserted) throw new Error("insert into crates returned no row");
+  return inserted;
+}
+
+export async function updateCrate(
+  q: Queryable,
+  campaignId: string,
+  id: string,
+  patch: Partial<typeof crates.$inferInsert>,
+): Promise<CrateRow> {
+  const [updated] = await q
+    .update(crates)
+    .set(patch)
+    .where(and(eq(crates.campaignId, campaignId), eq(crates.id, id)))
+    .returning();
+  if (!updated) throw new Error("update of crates returned no row");
+  return updated;
+}
+
+// Deleted crates are included: tablets pull the tombstone and stop offering the crate.
 export const cratesAfter = (q: Queryable, campaignId: string, cursor: number, limit: number) =>
   q
     .select()
     .from(crates)
-    .where(
-      and(
-        eq(crates.campaignId, campaignId),
-        gt(crates.changeSeq, cursor),
-        isNull(crates.deletedAt),
-      ),
-    )
+    .where(and(eq(crates.campaignId, campaignId), gt(crates.changeSeq, cursor)))
     .orderBy(asc(crates.changeSeq))
     .limit(limit);
 

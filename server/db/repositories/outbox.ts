@@ -12,7 +12,26 @@ export async function enqueueEmail(q: Queryable, email: OutgoingEmail): Promise<
   await q.insert(emailOutbox).values(email);
 }
 
-/** Claims due messages; SKIP LOCKED lets several workers (or instances) share the outbox safely. */
+/** Queues a message at most once per key (unique message_key); false when it was queued before. */
+export async function enqueueEmailOnce(
+  q: Queryable,
+  email: OutgoingEmail & { messageKey: string },
+): Promise<boolean> {
+  const inserted = await q
+    .insert(emailOutbox)
+    .values(email)
+    .onConflictDoNothing({ target: emailOutbox.messageKey })
+    .returning({ id: emailOutbox.id });
+  return inserted.length > 0;
+}
+
+/** The Message-ID of an outbox row: the same on every attempt, so a resend is recognisable. */
+export const outboxMessageId = (id: number) => `<outbox-${id}@equipot>`;
+
+/**
+ * Claims due messages, locked until the caller's transaction ends; SKIP LOCKED lets several
+ * workers (or instances) share the outbox without taking the same row.
+ */
 export async function claimDueEmails(q: Queryable, limit: number) {
   return q
     .select()

@@ -1,14 +1,34 @@
 import { Router } from "express";
+import { z } from "zod";
+import { crateCreateInput, crateUpdateInput } from "../../../shared/schemas/logistics";
 import type { Db } from "../../db/client";
 import { listBenchmarks, listCrates } from "../../db/repositories/crates-benchmarks";
 import { requireAction, scope } from "../../middleware/authorize";
+import { parseInput } from "../../middleware/validate";
 import { presentBenchmark, presentCrate } from "../../presenters/crate-benchmark";
+import { createCrate, deleteCrate, editCrate } from "../../services/crates.service";
 
-/** Read-only lists for now; editing arrives with the logistics and height-link work. */
+const crateIdParam = z.object({ crateId: z.uuid("Crate id must be a UUID") });
+
+/** Crates are edited here by logistics, online; tablets get them through the pull. Benchmarks are read-only. */
 export function cratesBenchmarksRouter(db: Db): Router {
   const router = Router({ mergeParams: true });
   router.get("/crates", requireAction("campaign.read"), async (req, res) => {
     res.json({ crates: (await listCrates(db, scope(req).campaignId)).map(presentCrate) });
+  });
+  router.post("/crates", requireAction("crate.manage"), async (req, res) => {
+    const input = parseInput(crateCreateInput, req.body);
+    res.status(201).json({ crate: await createCrate(db, scope(req), input) });
+  });
+  router.put("/crates/:crateId", requireAction("crate.manage"), async (req, res) => {
+    const { crateId } = parseInput(crateIdParam, req.params);
+    const input = parseInput(crateUpdateInput, req.body);
+    res.json({ crate: await editCrate(db, scope(req), crateId, input) });
+  });
+  router.delete("/crates/:crateId", requireAction("crate.manage"), async (req, res) => {
+    const { crateId } = parseInput(crateIdParam, req.params);
+    await deleteCrate(db, scope(req), crateId);
+    res.status(204).end();
   });
   router.get("/benchmarks", requireAction("campaign.read"), async (req, res) => {
     res.json({

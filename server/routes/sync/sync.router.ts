@@ -8,14 +8,23 @@ import { parseInput } from "../../middleware/validate";
 import { pull } from "../../services/sync/pull";
 import { push } from "../../services/sync/push";
 
-/** Mounted under /api/sync after authentication. */
-export function syncRouter(db: Db): Router {
+/**
+ * Mounted under /api/sync after authentication. `afterPush` runs once a push committed (it may have
+ * queued alert e-mails: it wakes the sender).
+ */
+export function syncRouter(
+  db: Db,
+  linkBase?: () => string,
+  afterPush: () => void = () => undefined,
+): Router {
   const router = Router();
 
   // Membership is checked per mutation inside the push (a removed member's changes are kept).
   router.post("/push", async (req, res) => {
     const input = parseInput(pushRequest, req.body);
-    res.json(await push(db, requireAuth(req).userId, input));
+    const response = await push(db, requireAuth(req).userId, input, linkBase);
+    afterPush();
+    res.json(response);
   });
 
   router.get("/pull", async (req, res) => {

@@ -9,6 +9,7 @@ import {
   type MutationEnvelope,
   type MutationName,
 } from "../../../shared/sync/protocol";
+import { applyAlertAcknowledge } from "./alert-mutations";
 import { applyAttachmentAdd, applyAttachmentRemove } from "./attachment-mutations";
 import {
   applyChecklistRecord,
@@ -24,6 +25,8 @@ import {
   type Settled,
 } from "./context";
 import { applyEntryAdd } from "./field-entry-mutations";
+import { applyHandoverRecord } from "./handover-mutations";
+import { applyLegArrive, applyLegCancel, applyLegDepart, applyLegPlan } from "./leg-mutations";
 import {
   applyLevellingClose,
   applyLevellingOpen,
@@ -92,6 +95,12 @@ const appliers: { [N in Exclude<MutationName, "site.create">]: Applier<N> } = {
   "levelling.open": applyLevellingOpen,
   "levelling.setup": applyLevellingSetup,
   "levelling.close": applyLevellingClose,
+  "leg.plan": applyLegPlan,
+  "leg.depart": applyLegDepart,
+  "leg.arrive": applyLegArrive,
+  "leg.cancel": applyLegCancel,
+  "handover.record": applyHandoverRecord,
+  "alert.acknowledge": applyAlertAcknowledge,
 };
 
 function applyOne<N extends Exclude<MutationName, "site.create">>(

@@ -10,6 +10,7 @@ import {
 } from "../../db/repositories/attachment-links";
 import { findRunForUpdate } from "../../db/repositories/checklists";
 import { findEntry } from "../../db/repositories/field-entries";
+import { findHandover } from "../../db/repositories/handovers";
 import { findSection } from "../../db/repositories/levelling";
 import { findSiteAnywhere } from "../../db/repositories/sites";
 import { presentAttachmentLink } from "../../presenters/attachment-link";
@@ -26,6 +27,7 @@ const subjectFinders: Record<
   fieldEntry: async (ctx, id) => (await findEntry(ctx.tx, ctx.campaignId, id)) !== undefined,
   levellingSection: async (ctx, id) =>
     (await findSection(ctx.tx, ctx.campaignId, id)) !== undefined,
+  handover: async (ctx, id) => (await findHandover(ctx.tx, ctx.campaignId, id)) !== undefined,
 };
 
 const audit = (

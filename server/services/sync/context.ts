@@ -11,6 +11,8 @@ export interface ApplyContext {
   role: Role;
   clientId: string;
   mutationId: number;
+  /** The address users open, for links in e-mails (config PUBLIC_URL). */
+  linkBase?: () => string;
 }
 
 export type ApplyOutcome = { status: "applied" | "conflict"; message?: string };

@@ -7,7 +7,10 @@ import { findCrate } from "../../db/repositories/crates-benchmarks";
 import { entryIdTaken, findEntry, insertEntry } from "../../db/repositories/field-entries";
 import { findSiteAnywhere } from "../../db/repositories/sites";
 import { presentFieldEntry } from "../../presenters/field-entry";
+import { raiseAlertForEntry } from "../alerts.service";
 import { auditChange, Rejection, type ApplyContext, type ApplyOutcome, type Args } from "./context";
+
+/** The app's public address for links in alert e-mails, once the push passes it on. */
 
 export async function applyEntryAdd(
   ctx: ApplyContext,
@@ -51,5 +54,12 @@ export async function applyEntryAdd(
     entityId: row.id,
     after: presentFieldEntry(stored ?? { ...row, recordedByName: null }),
   });
+  if (flags.exceeded)
+    await raiseAlertForEntry(ctx.tx, {
+      entry: row,
+      crateLabel: crate?.label ?? null,
+      recordedByName: stored?.recordedByName ?? null,
+      linkBase: ctx.linkBase?.(),
+    });
   return { status: "applied" };
 }

@@ -3,11 +3,14 @@
 import type { z } from "zod";
 import type { ChangeRecord, PullResponse, pullQuery } from "../../../shared/sync/protocol";
 import type { Db, Tx } from "../../db/client";
+import { alertsAfter } from "../../db/repositories/alerts";
 import { attachmentLinksAfter } from "../../db/repositories/attachment-links";
 import { resultsAfter, runsAfter, templatesAfter } from "../../db/repositories/checklists";
 import { cratesAfter } from "../../db/repositories/crates-benchmarks";
 import { entriesAfter } from "../../db/repositories/field-entries";
+import { handoversAfter } from "../../db/repositories/handovers";
 import { sectionsAfter, setupsAfter } from "../../db/repositories/levelling";
+import { legsAfter } from "../../db/repositories/legs";
 import {
   conflictsAfter,
   findSyncClient,
@@ -15,12 +18,14 @@ import {
   sitesAfter,
 } from "../../db/repositories/sync";
 import { forbidden } from "../../http-errors";
+import { presentAlert } from "../../presenters/alert";
 import { presentAttachmentLink } from "../../presenters/attachment-link";
 import { presentResult, presentRun, presentTemplate } from "../../presenters/checklist";
 import { presentConflict } from "../../presenters/conflict";
 import { presentCrate } from "../../presenters/crate-benchmark";
 import { presentFieldEntry } from "../../presenters/field-entry";
 import { presentSection, presentSetup } from "../../presenters/levelling";
+import { presentHandover, presentLeg } from "../../presenters/logistics";
 import { presentSite } from "../../presenters/site";
 import { assertProtocol } from "./push";
 
@@ -76,7 +81,7 @@ const sources: Source[] = [
       id: r.id,
       data: presentResult(r),
     })),
-  // Read-only on tablets for now; deleted crates are left out (the view has no tombstone yet).
+  // Edited over REST by logistics; deleted crates come as tombstones (deletedAt set).
   async (tx, ...range) =>
     (await cratesAfter(tx, ...range)).map((r) => ({
       entity: "crate",
@@ -104,6 +109,27 @@ const sources: Source[] = [
       seq: r.changeSeq,
       id: r.id,
       data: presentSetup(r),
+    })),
+  async (tx, ...range) =>
+    (await legsAfter(tx, ...range)).map((r) => ({
+      entity: "leg",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentLeg(r),
+    })),
+  async (tx, ...range) =>
+    (await handoversAfter(tx, ...range)).map((r) => ({
+      entity: "handover",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentHandover(r),
+    })),
+  async (tx, ...range) =>
+    (await alertsAfter(tx, ...range)).map((r) => ({
+      entity: "alert",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentAlert(r),
     })),
 ];
 

@@ -90,7 +90,12 @@ function resultOf(mutation: MutationEnvelope, settled: Settled | undefined): Mut
   return { mutationId: mutation.mutationId, ...settled };
 }
 
-export async function push(db: Db, userId: string, request: PushRequest): Promise<PushResponse> {
+export async function push(
+  db: Db,
+  userId: string,
+  request: PushRequest,
+  linkBase?: () => string,
+): Promise<PushResponse> {
   assertProtocol(request.protocolVersion);
   assertContiguous(request);
   return db.transaction(async (tx) => {
@@ -115,6 +120,7 @@ export async function push(db: Db, userId: string, request: PushRequest): Promis
       userId,
       role: membership?.role,
       clientId: client.id,
+      linkBase,
     };
     // Ids are contiguous, so the ones already applied are a prefix.
     const results: MutationResult[] = request.mutations

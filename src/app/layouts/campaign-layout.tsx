@@ -62,6 +62,17 @@ function CampaignNav({ campaign }: { campaign: CampaignContext }) {
       >
         Sites
       </NavLink>
+      <NavLink to={paths.crates(campaign.campaignId)} className={tabClass}>
+        Crates
+      </NavLink>
+      {can(campaign.role, "leg.plan") && (
+        <NavLink to={paths.logistics(campaign.campaignId)} className={tabClass}>
+          Logistics
+        </NavLink>
+      )}
+      <NavLink to={paths.map(campaign.campaignId)} className={tabClass}>
+        Map
+      </NavLink>
       <ConflictsTab campaignId={campaign.campaignId} />
       {can(campaign.role, "member.read") && (
         <NavLink to={paths.members(campaign.campaignId)} className={tabClass}>

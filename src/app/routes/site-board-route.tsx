@@ -8,6 +8,8 @@ import { CratesOnSite } from "../../features/field-entries/components/crates-on-
 import { EntryList } from "../../features/field-entries/components/entry-list";
 import { useCrates, useSiteEntries } from "../../features/field-entries/hooks/use-field-entries";
 import { SiteSections } from "../../features/levelling/components/site-sections";
+import { useLogistics } from "../../features/logistics/hooks/use-logistics";
+import { cratePlace } from "../../db/logistics-queries";
 import { useLocalSite, useLocalSites } from "../../features/sites/hooks/use-local-sites";
 import { SyncCard } from "../../features/sync/components/sync-card";
 import { Button, LinkButton } from "../../components/button";
@@ -19,6 +21,7 @@ import { readCurrentSite, writeCurrentSite } from "../../lib/current-site";
 import { useCampaign } from "../layouts/campaign-layout";
 import { NotFoundHere } from "../not-found-here";
 import { paths } from "../paths";
+import type { LocalLeg } from "../../db/database";
 
 function Section({ title, children }: { title: string; children: ReactNode }) {
   const id = `board-${title.toLowerCase().replace(/\W+/g, "-")}`;
@@ -30,6 +33,19 @@ function Section({ title, children }: { title: string; children: ReactNode }) {
       {children}
     </section>
   );
+}
+
+/** Where each crate's legs put it, seen from this site. */
+function placedBy(legs: readonly LocalLeg[], siteId: string): Map<string, "here" | "elsewhere"> {
+  const byCrate = new Map<string, LocalLeg[]>();
+  for (const leg of legs) byCrate.set(leg.crateId, [...(byCrate.get(leg.crateId) ?? []), leg]);
+  const placed = new Map<string, "here" | "elsewhere">();
+  for (const [crateId, crateLegs] of byCrate) {
+    const place = cratePlace(crateLegs);
+    if (place.kind === "at") placed.set(crateId, place.siteId === siteId ? "here" : "elsewhere");
+    if (place.kind === "moving") placed.set(crateId, "elsewhere");
+  }
+  return placed;
 }
 
 function TimeLeftCard() {
@@ -79,6 +95,7 @@ export function SiteBoardRoute() {
   const site = useLocalSite(campaignId, siteId);
   const entries = useSiteEntries(campaignId, siteId);
   const crates = useCrates(campaignId);
+  const logistics = useLogistics(campaignId);
   const [current, setCurrent] = useState(() => readCurrentSite(campaignId));
 
   if (site === undefined || entries === undefined || crates === undefined)
@@ -161,6 +178,9 @@ export function SiteBoardRoute() {
         <div className="flex flex-wrap gap-3">
           <LinkButton to={paths.temperatures(campaignId, site.id)}>Temperatures</LinkButton>
           <LinkButton to={paths.levelling(campaignId, site.id)}>Levelling field books</LinkButton>
+          {can(role, "handover.record") && (
+            <LinkButton to={paths.handover(campaignId)}>Hand over a crate</LinkButton>
+          )}
         </div>
         <SiteChecklists
           campaignId={campaignId}
@@ -181,7 +201,11 @@ export function SiteBoardRoute() {
         )}
         <div className="grid gap-8 lg:grid-cols-2">
           <Section title="Crates here">
-            <CratesOnSite entries={entries} crates={crates} />
+            <CratesOnSite
+              entries={entries}
+              crates={crates}
+              placed={placedBy(logistics?.legs ?? [], site.id)}
+            />
           </Section>
           <Section title="Levelling">
             <SiteSections

@@ -45,6 +45,12 @@ export const changeKindLabels: Record<MutationName, string> = {
   "levelling.open": "New levelling section",
   "levelling.setup": "Levelling setup",
   "levelling.close": "Closing of a levelling section",
+  "leg.plan": "Planned leg of a crate",
+  "leg.depart": "Departure of a crate",
+  "leg.arrive": "Arrival of a crate",
+  "leg.cancel": "Cancelled leg",
+  "handover.record": "Handover of a crate",
+  "alert.acknowledge": "Acknowledged alert",
 };
 
 /** The site a refused change was about, by its typed name or by the name known on this device. */

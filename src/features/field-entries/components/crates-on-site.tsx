@@ -1,6 +1,6 @@
-// The crates seen at a site — every crate with an entry recorded here — each with its limits and
-// whether anything recorded for it went beyond them. (Where a crate is by its journey's legs comes
-// with logistics; until then an entry at the site is what places a crate there.)
+// The crates at a site — placed here by their last arrived leg, or, for a crate no leg has placed
+// yet, seen here in an entry — each with its limits and whether anything recorded for it went
+// beyond them.
 import type { CrateView } from "../../../../shared/schemas/crates";
 import type { LocalFieldEntry } from "../../../db/database";
 import { StatusShape } from "../../../components/status-shape";
@@ -11,15 +11,17 @@ const teamLiftKg = 25;
 interface Props {
   entries: readonly LocalFieldEntry[];
   crates: readonly CrateView[];
+  /** Where the legs put each crate: "here", "elsewhere", or absent when no leg has placed it. */
+  placed: ReadonlyMap<string, "here" | "elsewhere">;
 }
 
-export function CratesOnSite({ entries, crates }: Props) {
-  const seen = crates.filter((c) => entries.some((e) => e.crateId === c.id));
+export function CratesOnSite({ entries, crates, placed }: Props) {
+  const seen = crates.filter((c) =>
+    placed.has(c.id) ? placed.get(c.id) === "here" : entries.some((e) => e.crateId === c.id),
+  );
   if (seen.length === 0)
     return (
-      <p className="text-muted">
-        No crate recorded at this site yet. Read its indicators on arrival.
-      </p>
+      <p className="text-muted">No crate here yet. Read each crate's indicators on arrival.</p>
     );
   return (
     <ul aria-label="Crates at this site" className="flex flex-col gap-2">

@@ -7,7 +7,8 @@ import {
   optionalNumber,
   useSaveEntry,
 } from "./entry-form-parts";
-import { fromLocalInput, LocalTimeField, toLocalInput } from "./local-time-field";
+import { LocalTimeField } from "../../../components/local-time-field";
+import { fromLocalInput, toLocalInput } from "../../../lib/local-time";
 
 export function ShockEventForm({ campaignId, siteId, onSaved }: EntryFormProps) {
   const form = useSaveEntry(campaignId, onSaved);

@@ -10,12 +10,9 @@ import { TextAreaField, TextField } from "../../../components/form-field";
 import { Notice } from "../../../components/notice";
 import { formatUtc, parseDecimal } from "../../../lib/format";
 import { messageOf } from "../../../lib/api-error";
+import { toLocalInput } from "../../../lib/local-time";
 import { useTemperatureWrites } from "../hooks/use-temperatures";
 
-const pad = (v: number) => String(v).padStart(2, "0");
-/** "2026-06-03T14:05" in the tablet's local time, as a datetime-local input takes it. */
-export const toLocalInput = (d: Date) =>
-  `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
 const localToIso = (value: string) => {
   const d = new Date(value);
   return Number.isNaN(d.getTime()) ? null : d.toISOString();

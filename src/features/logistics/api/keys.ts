@@ -1,0 +1,4 @@
+export const crateKeys = {
+  all: ["crates"] as const,
+  list: (campaignId: string) => [...crateKeys.all, "list", campaignId] as const,
+};
