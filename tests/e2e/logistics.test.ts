@@ -1,6 +1,6 @@
 // A crate's journey: logistics plans a leg from the lab to the hut; the field crew, offline,
-// records the departure, the arrival and the handover at the hut (label typed), and sees the chain
-// of custody; back online, the server has the leg's steps and the handover.
+// records the departure, the arrival and the handover at the hut (the crate picked by scanning a
+// photo of its label), and sees the chain of custody; back online, the server has it all.
 import { afterAll, expect, test } from "vitest";
 import type { Page } from "playwright-core";
 import { launchProfile, screenshot, viewports, type Profile } from "../helpers/browser";
@@ -91,6 +91,9 @@ test("a leg planned by logistics, travelled and handed over offline, reaches the
   fieldProfile = await launchProfile({ viewport: viewports.tabletLandscape });
   const field = fieldProfile.context.pages()[0] ?? (await fieldProfile.context.newPage());
   await readyForOffline(field, server.baseUrl, "field");
+  // The label on the crate, as the tablet's camera would photograph it.
+  await field.goto(`${server.baseUrl}/campaigns/${demo.campaignId}/crates/${crate?.id}/label`);
+  const labelPhoto = await field.getByTestId("crate-qr").screenshot();
   await fieldProfile.context.setOffline(true);
   await openCrate(field, server.baseUrl, demo.campaignId, "KR-02");
   const legs = field.getByRole("list", { name: "Legs" });
@@ -106,7 +109,9 @@ test("a leg planned by logistics, travelled and handed over offline, reaches the
   await field.getByRole("link", { name: "Hand over a crate" }).click();
   await field.getByRole("heading", { name: "Hand over a crate" }).waitFor();
   const form = field.getByRole("form", { name: "Handover" });
-  await form.getByLabel("Crate label").fill("kr-02");
+  await field
+    .getByLabel("Scan from a photo")
+    .setInputFiles({ name: "label.png", mimeType: "image/png", buffer: labelPhoto });
   await form.getByText("KR-02: Laser rack").waitFor();
   await form.getByLabel("Handed over by").fill("Van driver");
   await form.getByLabel("Received by (typed name)").fill("Hut crew lead");

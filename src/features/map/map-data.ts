@@ -37,8 +37,8 @@ export interface MapInputs {
 }
 
 /**
- * A crate's last known position is the site of its most recent entry (by observation time, then
- * id, as the site board orders them). Crates without an entry, or whose site is gone, are left out.
+ * A crate's last known position is the site of its most recent entry or arrival (by time, then
+ * id, as the site board orders them). Crates with neither, or whose site is gone, are left out.
  */
 export function lastCrateSites(
   crates: readonly Pick<CrateView, "id">[],

@@ -17,7 +17,7 @@ const groups: { kind: MapPointKind; title: string; empty: string }[] = [
   {
     kind: "crate",
     title: "Crates",
-    empty: "No crate has an entry yet, so none has a known position.",
+    empty: "No crate has an entry or an arrival yet, so none has a known position.",
   },
 ];
 

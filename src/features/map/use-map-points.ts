@@ -1,4 +1,4 @@
-// Everything the map shows, from this device: sites, crates and entries from the local store,
+// Everything the map shows, from this device: sites, crates, entries and legs from the local store,
 // benchmarks from the (persisted) REST cache.
 import { useMemo } from "react";
 import { useLiveQuery } from "dexie-react-hooks";
@@ -17,12 +17,19 @@ export interface MapPointsState {
 export function useMapPoints(campaignId: string): MapPointsState {
   const { db } = useLocalSync();
   const local = useLiveQuery(async () => {
-    const [sites, crates, entries] = await Promise.all([
+    const [sites, crates, fieldEntries, legs] = await Promise.all([
       listSites(db, campaignId),
       listCrates(db, campaignId),
       db.fieldEntries.where("campaignId").equals(campaignId).toArray(),
+      db.legs.where("campaignId").equals(campaignId).toArray(),
     ]);
-    return { sites, crates, entries };
+    // An arrival places a crate as surely as an entry does: the latest of either counts.
+    const arrivals = legs.flatMap((l) =>
+      l.arrivedAt === null || l.cancelledAt !== null
+        ? []
+        : [{ id: l.id, siteId: l.toSiteId, crateId: l.crateId, observedAt: l.arrivedAt }],
+    );
+    return { sites, crates, entries: [...fieldEntries, ...arrivals] };
   }, [db, campaignId]);
   const benchmarks = useBenchmarks(campaignId);
   const points = useMemo(
