@@ -121,6 +121,20 @@ export function pendingHandovers(
 }
 
 /** How many crates are in each state, every state listed. */
+/**
+ * The crate's state as this device knows it: the server moves it when a leg departs or arrives,
+ * so a step still waiting to be sent shows its effect here at once.
+ */
+export function shownCrateState(
+  crate: Pick<CrateView, "state">,
+  legs: readonly LocalLeg[],
+): CrateState {
+  const pending = legs.filter((l) => l.pending && legState(l) !== "cancelled");
+  if (pending.some((l) => legState(l) === "under-way")) return "moving";
+  if (pending.some((l) => legState(l) === "arrived")) return "arrived";
+  return crate.state;
+}
+
 export function countByState(
   crates: readonly Pick<CrateView, "state">[],
   states: readonly CrateState[],

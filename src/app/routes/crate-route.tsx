@@ -1,7 +1,7 @@
 import { useState } from "react";
 import { useParams } from "react-router-dom";
 import { can } from "../../../shared/permissions";
-import { cratePlace, currentHolder } from "../../db/logistics-queries";
+import { cratePlace, currentHolder, shownCrateState } from "../../db/logistics-queries";
 import { AlertList } from "../../features/logistics/components/alert-list";
 import { CrateCautions } from "../../features/logistics/components/crate-cautions";
 import { CrateForm } from "../../features/logistics/components/crate-form";
@@ -74,7 +74,7 @@ export function CrateRoute() {
           <h2 id="crate-details" className="text-xl font-semibold">
             Details
           </h2>
-          <CrateStateWord state={crate.state} />
+          <CrateStateWord state={shownCrateState(crate, legs)} />
           <p>{describePlace(cratePlace(legs), siteName)}</p>
           <p>{holder === null ? "No handover recorded yet" : `With ${holder}`}</p>
           <p>

@@ -35,7 +35,7 @@ export function LogisticsDashboardRoute() {
     <>
       <PageHeader title="Logistics" lead="Crates, legs, custody and alerts across the campaign" />
       <div className="flex flex-col gap-8">
-        <PlanLegForm campaignId={campaignId} crates={data.crates} sites={data.sites} />
+        {/* What needs attention first; planning below it. */}
         <LogisticsDashboard
           {...data}
           now={now}
@@ -43,6 +43,7 @@ export function LogisticsDashboardRoute() {
           alertsHref={paths.alerts(campaignId)}
           handoverHref={(id) => paths.handover(campaignId, id)}
         />
+        <PlanLegForm campaignId={campaignId} crates={data.crates} sites={data.sites} />
       </div>
     </>
   );

@@ -13,6 +13,7 @@ import {
   listCrateLegs,
   overdueLegs,
   pendingHandovers,
+  shownCrateState,
 } from "../../../src/db/logistics-queries";
 import {
   acknowledgeAlertLocally,
@@ -279,6 +280,15 @@ describe("logistics summaries", () => {
     const back = leg({ fromSiteId: hutId, toSiteId: labId, departedAt: "2027-06-11T16:00:00Z" });
     expect(cratePlace([first, back])).toEqual({ kind: "moving", toSiteId: labId });
     expect(cratePlace([leg({})])).toEqual({ kind: "unknown" });
+  });
+
+  it("shows a step not yet sent in the crate's state at once, and the server's state otherwise", () => {
+    const ready = { state: "ready" as const };
+    const departed = { departedAt: "2027-06-10T06:10:00Z" };
+    expect(shownCrateState(ready, [leg({ ...departed, pending: true })])).toBe("moving");
+    const arrived = { ...departed, arrivedAt: "2027-06-10T13:20:00Z", pending: true };
+    expect(shownCrateState(ready, [leg(arrived)])).toBe("arrived");
+    expect(shownCrateState(ready, [leg({ ...departed, pending: false })])).toBe("ready");
   });
 
   it("finds overdue legs and handovers still owed", () => {

@@ -2,7 +2,7 @@
 import { Link } from "react-router-dom";
 import type { CrateView } from "../../../../shared/schemas/crates";
 import type { LocalLeg, LocalSite } from "../../../db/database";
-import { cratePlace } from "../../../db/logistics-queries";
+import { cratePlace, shownCrateState } from "../../../db/logistics-queries";
 import { StatusShape } from "../../../components/status-shape";
 import { needsTeamLift } from "../format";
 import { CrateLimits } from "./crate-limits";
@@ -26,7 +26,8 @@ export function CrateList({ crates, legs, sites, crateHref }: Props) {
   return (
     <ul aria-label="Crates" className="grid gap-3 md:grid-cols-2">
       {crates.map((crate) => {
-        const place = cratePlace(legs.filter((l) => l.crateId === crate.id));
+        const crateLegs = legs.filter((l) => l.crateId === crate.id);
+        const place = cratePlace(crateLegs);
         return (
           <li
             key={crate.id}
@@ -39,7 +40,7 @@ export function CrateList({ crates, legs, sites, crateHref }: Props) {
               {crate.label}
             </Link>
             <span>{crate.contents}</span>
-            <CrateStateWord state={crate.state} />
+            <CrateStateWord state={shownCrateState(crate, crateLegs)} />
             <span className="flex items-center gap-2">
               <StatusShape
                 shape={place.kind === "moving" ? "dots" : "disc"}

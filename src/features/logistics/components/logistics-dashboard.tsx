@@ -71,7 +71,10 @@ export function LogisticsDashboard(props: Props) {
               : `${open.length} alerts not yet acknowledged`}
           </p>
         )}
-        <Link to={alertsHref} className="inline-flex min-h-touch items-center">
+        <Link
+          to={alertsHref}
+          className="inline-flex min-h-touch items-center font-semibold underline underline-offset-4"
+        >
           All alerts
         </Link>
       </section>
