@@ -7,6 +7,7 @@ import type {
 } from "../../shared/schemas/checklist-templates";
 import type { ChecklistTemplateView } from "../../shared/schemas/checklists";
 import { nextChangeSeq } from "../db/change-seq";
+import { nextRevision, tombstoneRevision, type Scope } from "./revision";
 import type { Db } from "../db/client";
 import { recordAudit } from "../db/repositories/audit";
 import {
@@ -18,11 +19,6 @@ import {
 } from "../db/repositories/checklist-templates";
 import { conflict, notFound } from "../http-errors";
 import { presentTemplate } from "../presenters/checklist";
-
-interface Scope {
-  campaignId: string;
-  userId: string;
-}
 
 type CreateFields = z.output<typeof checklistTemplateCreateInput>;
 type UpdateFields = z.output<typeof checklistTemplateUpdateInput>;
@@ -72,10 +68,7 @@ export async function editTemplate(
     const { baseVersion: _baseVersion, ...fields } = input;
     const row = await updateTemplate(tx, scope.campaignId, id, {
       ...fields,
-      version: current.version + 1,
-      updatedAt: new Date(),
-      updatedBy: scope.userId,
-      changeSeq: await nextChangeSeq(tx, scope.campaignId),
+      ...(await nextRevision(tx, scope, current)),
     });
     const after = presentTemplate(row);
     await recordAudit(tx, {
@@ -95,14 +88,12 @@ export async function deleteTemplate(db: Db, scope: Scope, id: string): Promise<
   await db.transaction(async (tx) => {
     const current = await findTemplateForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Checklist template not found");
-    const now = new Date();
-    const row = await updateTemplate(tx, scope.campaignId, id, {
-      deletedAt: now,
-      updatedAt: now,
-      updatedBy: scope.userId,
-      version: current.version + 1,
-      changeSeq: await nextChangeSeq(tx, scope.campaignId),
-    });
+    const row = await updateTemplate(
+      tx,
+      scope.campaignId,
+      id,
+      await tombstoneRevision(tx, scope, current),
+    );
     await recordAudit(tx, {
       ...scope,
       action: "delete",

@@ -4,6 +4,7 @@ import type { z } from "zod";
 import type { CrateView } from "../../shared/schemas/crates";
 import type { crateCreateInput, crateUpdateInput } from "../../shared/schemas/logistics";
 import { nextChangeSeq } from "../db/change-seq";
+import { nextRevision, tombstoneRevision, type Scope } from "./revision";
 import type { Db } from "../db/client";
 import { recordAudit } from "../db/repositories/audit";
 import {
@@ -14,11 +15,6 @@ import {
 } from "../db/repositories/crates-benchmarks";
 import { conflict, notFound } from "../http-errors";
 import { presentCrate } from "../presenters/crate-benchmark";
-
-interface Scope {
-  campaignId: string;
-  userId: string;
-}
 
 type CreateInput = z.output<typeof crateCreateInput>;
 type UpdateInput = z.output<typeof crateUpdateInput>;
@@ -58,10 +54,7 @@ export async function editCrate(
     }
     const row = await updateCrate(tx, scope.campaignId, id, {
       ...input.crate,
-      version: current.version + 1,
-      updatedAt: new Date(),
-      updatedBy: scope.userId,
-      changeSeq: await nextChangeSeq(tx, scope.campaignId),
+      ...(await nextRevision(tx, scope, current)),
     });
     const after = presentCrate(row);
     await recordAudit(tx, {
@@ -81,14 +74,12 @@ export async function deleteCrate(db: Db, scope: Scope, id: string): Promise<voi
   await db.transaction(async (tx) => {
     const current = await findCrateForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Crate not found");
-    const now = new Date();
-    const row = await updateCrate(tx, scope.campaignId, id, {
-      deletedAt: now,
-      updatedAt: now,
-      updatedBy: scope.userId,
-      version: current.version + 1,
-      changeSeq: await nextChangeSeq(tx, scope.campaignId),
-    });
+    const row = await updateCrate(
+      tx,
+      scope.campaignId,
+      id,
+      await tombstoneRevision(tx, scope, current),
+    );
     await recordAudit(tx, {
       ...scope,
       action: "delete",

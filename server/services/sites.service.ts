@@ -2,6 +2,7 @@ import { randomUUID } from "node:crypto";
 import type { SiteCreateInput, SiteUpdateInput, SiteView } from "../../shared/schemas/sites";
 import type { Db } from "../db/client";
 import { nextChangeSeq } from "../db/change-seq";
+import { nextRevision, tombstoneRevision, type Scope } from "./revision";
 import { recordAudit } from "../db/repositories/audit";
 import {
   findSiteAnywhere,
@@ -12,11 +13,6 @@ import {
 } from "../db/repositories/sites";
 import { conflict, notFound } from "../http-errors";
 import { presentSite } from "../presenters/site";
-
-interface Scope {
-  campaignId: string;
-  userId: string;
-}
 
 export const listCampaignSites = async (db: Db, campaignId: string) =>
   (await listSites(db, campaignId)).map(presentSite);
@@ -64,10 +60,7 @@ export async function editSite(
     const { baseVersion: _baseVersion, ...fields } = input;
     const row = await updateSite(tx, id, {
       ...fields,
-      version: current.version + 1,
-      updatedAt: new Date(),
-      updatedBy: scope.userId,
-      changeSeq: await nextChangeSeq(tx, scope.campaignId),
+      ...(await nextRevision(tx, scope, current)),
     });
     const after = presentSite(row);
     await recordAudit(tx, {
@@ -86,15 +79,7 @@ export async function deleteSite(db: Db, scope: Scope, id: string): Promise<void
   await db.transaction(async (tx) => {
     const current = await findSiteForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Site not found");
-    const now = new Date();
-    await updateSite(tx, id, {
-      deletedAt: now,
-      updatedAt: now,
-      updatedBy: scope.userId,
-      version: current.version + 1,
-      // A new position, so tablets pull the tombstone.
-      changeSeq: await nextChangeSeq(tx, scope.campaignId),
-    });
+    await updateSite(tx, id, await tombstoneRevision(tx, scope, current));
     await recordAudit(tx, {
       ...scope,
       action: "delete",
