@@ -76,7 +76,6 @@ export async function listCrateAlerts(
 }
 
 /** Names match when equal after trimming, ignoring case (a typed signature, not an account). */
-export const sameName = (a: string, b: string) => a.trim().toLowerCase() === b.trim().toLowerCase();
 
 /** Who holds the crate: the receiver of its last handover (chain oldest first), or null. */
 export const currentHolder = (chain: readonly Pick<LocalHandover, "toName">[]) =>

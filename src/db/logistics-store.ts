@@ -12,7 +12,8 @@ import {
 import type { CrateView } from "../../shared/schemas/crates";
 import type { EquipotDb, LocalLeg } from "./database";
 import type { HandoverSnapshot } from "./logistics-view";
-import { lastHandover, sameName } from "./logistics-queries";
+import { custodyProblem } from "../../shared/custody";
+import { lastHandover } from "./logistics-queries";
 import { readAuthorName, recordMutation } from "./outbox";
 
 /** The first problem of an input, naming its field as the schema names it. */
@@ -167,18 +168,17 @@ export async function recordHandoverLocally(
       throw new LogisticsInputError("legId", "This leg is not one of this crate's legs");
   }
   const last = await lastHandover(db, campaignId, args.crateId);
-  if (last !== null) {
-    if (Date.parse(args.at) <= Date.parse(last.at))
-      throw new LogisticsInputError(
-        "at",
-        `Time: must be after the last handover of ${crate.label} (${last.at}); custody is recorded in time order`,
-      );
-    if (!sameName(args.fromName, last.toName))
-      throw new LogisticsInputError(
-        "fromName",
-        `Handed over by: ${crate.label} is held by ${last.toName.trim()}, not ${args.fromName}`,
-      );
-  }
+  const problem = custodyProblem(last, args);
+  if (problem?.kind === "out-of-order")
+    throw new LogisticsInputError(
+      "at",
+      `Time: must be after the last handover of ${crate.label} (${last?.at}); custody is recorded in time order`,
+    );
+  if (problem?.kind === "wrong-giver")
+    throw new LogisticsInputError(
+      "fromName",
+      `Handed over by: ${crate.label} is held by ${problem.holder}, not ${args.fromName}`,
+    );
   const snapshot: HandoverSnapshot = { recordedByName: await readAuthorName(db) };
   await recordMutation(db, {
     campaignId,

@@ -2,7 +2,10 @@
 import { pino } from "pino";
 import request from "supertest";
 import type { Express } from "express";
+import type { Role } from "../../shared/permissions";
 import { createApp } from "../../server/app";
+import { memberships, users } from "../../server/db/schema";
+import { hashPassword } from "../../server/services/passwords";
 import type { Config } from "../../server/config";
 import { requestHeader } from "../../shared/schemas/auth";
 import { demoPassword, seedDemo } from "../../server/seed/demo";
@@ -55,4 +58,21 @@ export async function signInAs(app: Express, role: string) {
     cookie: cookie?.split(";")[0] ?? "",
     body: res.body,
   };
+}
+
+/** Signs in a new person who is a member (with `role`) of `campaignId` only: a stranger elsewhere. */
+export async function outsiderToken(ctx: TestContext, campaignId: string, role: Role) {
+  const email = `outsider-${crypto.randomUUID()}@practice.equipot.test`;
+  const password = "outsider-password";
+  const [outsider] = await ctx.database.db
+    .insert(users)
+    .values({ email, name: "Outsider", passwordHash: await hashPassword(password) })
+    .returning();
+  if (!outsider) throw new Error("the outsider was not created");
+  await ctx.database.db.insert(memberships).values({ campaignId, userId: outsider.id, role });
+  const res = await withHeader(request(ctx.app).post("/api/auth/sign-in")).send({
+    email,
+    password,
+  });
+  return (res.body as { accessToken: string }).accessToken;
 }

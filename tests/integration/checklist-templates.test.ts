@@ -5,16 +5,15 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import request from "supertest";
 import { and, eq } from "drizzle-orm";
-import { createTestContext, signInAs, type TestContext } from "../helpers/app";
+import { createTestContext, outsiderToken, signInAs, type TestContext } from "../helpers/app";
 import { pullAll, pushAs, syncClient } from "../helpers/sync";
-import { auditEvents, checklistTemplates, memberships, users } from "../../server/db/schema";
-import { hashPassword } from "../../server/services/passwords";
+import { auditEvents, checklistTemplates, users } from "../../server/db/schema";
 import type { ChecklistTemplateView } from "../../shared/schemas/checklists";
 
 let ctx: TestContext;
 let campaignId: string;
 let adminToken: string;
-let outsiderToken: string;
+let outsider: string;
 let base: string;
 
 beforeAll(async () => {
@@ -26,23 +25,8 @@ beforeAll(async () => {
   base = `/api/campaigns/${campaignId}/checklist-templates`;
   // An administrator of the other demo campaign only: a stranger to this one.
   const practice = admin.memberships.find((m) => m.campaignId !== campaignId)?.campaignId ?? "";
-  const [outsider] = await ctx.database.db
-    .insert(users)
-    .values({
-      email: "outsider@practice.equipot.test",
-      name: "Outsider",
-      passwordHash: await hashPassword("outsider-password"),
-    })
-    .returning();
-  if (!outsider || !practice) throw new Error("fixture");
-  await ctx.database.db
-    .insert(memberships)
-    .values({ campaignId: practice, userId: outsider.id, role: "admin" });
-  const res = await request(ctx.app)
-    .post("/api/auth/sign-in")
-    .set("x-equipot-request", "1")
-    .send({ email: "outsider@practice.equipot.test", password: "outsider-password" });
-  outsiderToken = res.body.accessToken;
+  if (!practice) throw new Error("no second demo campaign");
+  outsider = await outsiderToken(ctx, practice, "admin");
 });
 afterAll(async () => {
   await ctx.close();
@@ -235,10 +219,10 @@ describe("who may edit templates", () => {
   });
 
   it("answers 404 to someone outside the campaign, revealing nothing", async () => {
-    const list = await request(ctx.app).get(base).set(auth(outsiderToken));
+    const list = await request(ctx.app).get(base).set(auth(outsider));
     expect(list.status).toBe(404);
     expect(JSON.stringify(list.body)).not.toContain("Arrival");
-    const post = await request(ctx.app).post(base).set(auth(outsiderToken)).send(newTemplate());
+    const post = await request(ctx.app).post(base).set(auth(outsider)).send(newTemplate());
     expect(post.status).toBe(404);
   });
 });

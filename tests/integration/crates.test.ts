@@ -4,10 +4,9 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import request from "supertest";
 import { and, eq } from "drizzle-orm";
-import { createTestContext, signInAs, type TestContext } from "../helpers/app";
+import { createTestContext, outsiderToken, signInAs, type TestContext } from "../helpers/app";
 import { pullAll } from "../helpers/sync";
-import { auditEvents, crates, memberships, users } from "../../server/db/schema";
-import { hashPassword } from "../../server/services/passwords";
+import { auditEvents, crates, users } from "../../server/db/schema";
 import type { CrateView } from "../../shared/schemas/crates";
 
 let ctx: TestContext;
@@ -16,7 +15,7 @@ let practiceId: string;
 let logisticsToken: string;
 let adminToken: string;
 let fieldToken: string;
-let outsiderToken: string;
+let outsider: string;
 let base: string;
 
 beforeAll(async () => {
@@ -30,23 +29,8 @@ beforeAll(async () => {
   practiceId = admin.memberships.find((m) => m.campaignId !== campaignId)?.campaignId ?? "";
   fieldToken = (await signInAs(ctx.app, "field")).token;
   // Logistics of the other demo campaign only: a stranger to this one.
-  const [outsider] = await ctx.database.db
-    .insert(users)
-    .values({
-      email: "outsider@practice.equipot.test",
-      name: "Outsider",
-      passwordHash: await hashPassword("outsider-password"),
-    })
-    .returning();
-  if (!outsider || !practiceId) throw new Error("fixture");
-  await ctx.database.db
-    .insert(memberships)
-    .values({ campaignId: practiceId, userId: outsider.id, role: "logistics" });
-  const res = await request(ctx.app)
-    .post("/api/auth/sign-in")
-    .set("x-equipot-request", "1")
-    .send({ email: "outsider@practice.equipot.test", password: "outsider-password" });
-  outsiderToken = res.body.accessToken;
+  if (!practiceId) throw new Error("no second demo campaign");
+  outsider = await outsiderToken(ctx, practiceId, "logistics");
 });
 afterAll(async () => {
   await ctx.close();
@@ -214,19 +198,19 @@ describe("who may edit crates", () => {
 
   it("answers 404 to someone outside the campaign, revealing nothing", async () => {
     const [demo] = await ctx.database.db.select().from(crates).where(eq(crates.label, "KR-03"));
-    const list = await request(ctx.app).get(base).set(auth(outsiderToken));
+    const list = await request(ctx.app).get(base).set(auth(outsider));
     expect(list.status).toBe(404);
     expect(JSON.stringify(list.body)).not.toContain("KR-03");
-    const post = await request(ctx.app).post(base).set(auth(outsiderToken)).send(newCrate());
+    const post = await request(ctx.app).post(base).set(auth(outsider)).send(newCrate());
     expect(post.status).toBe(404);
     const put = await request(ctx.app)
       .put(`${base}/${demo?.id}`)
-      .set(auth(outsiderToken))
+      .set(auth(outsider))
       .send({ baseVersion: 1, crate: fields() });
     expect(put.status).toBe(404);
-    expect(
-      (await request(ctx.app).delete(`${base}/${demo?.id}`).set(auth(outsiderToken))).status,
-    ).toBe(404);
+    expect((await request(ctx.app).delete(`${base}/${demo?.id}`).set(auth(outsider))).status).toBe(
+      404,
+    );
   });
 
   it("does not reach another campaign's crate through one's own campaign", async () => {

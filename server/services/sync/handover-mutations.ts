@@ -1,6 +1,7 @@
 // Custody of a crate passes from person to person, recorded append-only and in time order. The
 // crate's row lock orders two tablets handing over the same crate at once, so the chain is checked
 // against the handover that really came before.
+import { custodyProblem } from "../../../shared/custody";
 import { nextChangeSeq } from "../../db/change-seq";
 import { findCrateForUpdate } from "../../db/repositories/crates-benchmarks";
 import {
@@ -14,8 +15,6 @@ import { findSiteAnywhere } from "../../db/repositories/sites";
 import { presentHandover } from "../../presenters/logistics";
 import { auditChange, Rejection, type ApplyContext, type ApplyOutcome, type Args } from "./context";
 import { readableTime } from "./leg-mutations";
-
-const sameName = (a: string, b: string) => a.trim().toLowerCase() === b.trim().toLowerCase();
 
 export async function applyHandoverRecord(
   ctx: ApplyContext,
@@ -38,14 +37,13 @@ export async function applyHandoverRecord(
     throw new Rejection("The site of this handover is not in this campaign");
   const at = new Date(args.at);
   const previous = await latestHandoverOfCrate(ctx.tx, ctx.campaignId, crate.id);
-  if (previous) {
-    if (at <= previous.at)
-      throw new Rejection(
-        `The handover at ${readableTime(at)} is ${at < previous.at ? "earlier than" : "at the same time as"} the last handover of ${crate.label} at ${readableTime(previous.at)}; custody is recorded in time order`,
-      );
-    if (!sameName(previous.toName, args.fromName))
-      throw new Rejection(`${crate.label} is held by ${previous.toName}, not ${args.fromName}`);
-  }
+  const problem = custodyProblem(previous ?? null, { at, fromName: args.fromName });
+  if (problem?.kind === "out-of-order" && previous)
+    throw new Rejection(
+      `The handover at ${readableTime(at)} is ${at < previous.at ? "earlier than" : "at the same time as"} the last handover of ${crate.label} at ${readableTime(previous.at)}; custody is recorded in time order`,
+    );
+  if (problem?.kind === "wrong-giver")
+    throw new Rejection(`${crate.label} is held by ${problem.holder}, not ${args.fromName}`);
   const row = await insertHandover(ctx.tx, {
     id: args.id,
     campaignId: ctx.campaignId,
