@@ -22,6 +22,7 @@ import { syncRouter } from "./routes/sync/sync.router";
 import { createTokenService } from "./services/tokens";
 import { createDiskStorage } from "./storage/disk";
 import type { Storage } from "./storage/storage";
+import { createSciencePool, type SciencePool } from "./workers/science-pool";
 
 export interface AppDeps {
   config: Config;
@@ -32,6 +33,8 @@ export interface AppDeps {
   linkBase?: () => string;
   /** File storage, built by startServer from the configuration; by default a temp folder. */
   storage?: Storage;
+  /** Worker threads for heavy analysis; by default a pool whose workers start on first use. */
+  science?: SciencePool;
 }
 
 const contentSecurityPolicy = {
@@ -77,6 +80,7 @@ export function createApp({
   onMailQueued = () => undefined,
   linkBase,
   storage = createDiskStorage(join(tmpdir(), `equipot-files-${process.pid}`)),
+  science = createSciencePool(),
 }: AppDeps): Express {
   const app = express();
   app.disable("x-powered-by");
@@ -120,6 +124,7 @@ export function createApp({
       linkBase: linkBase ?? (() => publicUrl(config)),
       onMailQueued,
       storage,
+      science,
     }),
   );
   api.use(

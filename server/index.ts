@@ -7,6 +7,7 @@ import { connect } from "./db/client";
 import { createLogger } from "./logger";
 import { createMailWorker, type MailWorker } from "./mail/mail-worker";
 import { createStorage } from "./storage/create-storage";
+import { createSciencePool } from "./workers/science-pool";
 
 export interface RunningServer {
   url: string;
@@ -25,6 +26,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
   if (!mail) log.warn("SMTP_URL is not set: e-mail stays in the outbox until it is");
   let url = publicUrl(config);
   const linkBase = () => url;
+  const science = createSciencePool();
   const app = createApp({
     config,
     db: database.db,
@@ -32,6 +34,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
     onMailQueued: () => mail?.kick(),
     linkBase,
     storage,
+    science,
   });
   const server = await new Promise<Server>((resolve, reject) => {
     const s = app.listen(config.PORT, config.HOST, () => resolve(s)).on("error", reject);
@@ -47,6 +50,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
       server.closeAllConnections();
       await closed;
       await mail?.stop();
+      await science.close();
       await database.close();
     },
   };

@@ -19,6 +19,10 @@ export const actions = [
   "leg.record",
   "handover.record",
   "alert.acknowledge",
+  "benchmark.manage",
+  "instrument.manage",
+  "levelling.adjust",
+  "comparison.manage",
 ] as const;
 export type Action = (typeof actions)[number];
 
@@ -45,6 +49,11 @@ const table: Record<Action, readonly Role[]> = {
   "levelling.record": ["field", "geodesist", "admin"],
   // Templates are kept by administrators, in the office (DESIGN.md §6).
   "checklist.template.write": ["admin"],
+  // The geodesist keeps the height side of the campaign (DESIGN.md §6).
+  "benchmark.manage": ["geodesist", "admin"],
+  "instrument.manage": ["geodesist", "admin"],
+  "levelling.adjust": ["geodesist", "admin"],
+  "comparison.manage": ["geodesist", "admin"],
 };
 
 export function can(role: Role | undefined | null, action: Action): boolean {

@@ -23,6 +23,8 @@ import { checklistPurposes } from "../../shared/schemas/checklists";
 import { fieldEntryKinds } from "../../shared/schemas/field-entries";
 import { levellingRuns } from "../../shared/schemas/levelling";
 import { crateStates, handoverConditions } from "../../shared/schemas/logistics";
+import { instrumentKinds } from "../../shared/schemas/instruments";
+import { seriesValueKinds, analysisStates } from "../../shared/schemas/comparison";
 import { siteKinds } from "../../shared/schemas/sites";
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
@@ -407,6 +409,8 @@ export const benchmarks = pgTable(
     heightM: doublePrecision("height_m").notNull(),
     heightSigmaM: doublePrecision("height_sigma_m").notNull(),
     heightSystem: text("height_system").notNull(),
+    /** The realisation of the height system the height belongs to (name and epoch). */
+    datum: text("datum").notNull().default(""),
     source: text("source").notNull().default(""),
     version: integer("version").notNull().default(1),
     changeSeq: changeSeq(),
@@ -593,3 +597,167 @@ export const alerts = pgTable(
     uniqueIndex("alerts_entry_key").on(t.entryId),
   ],
 );
+
+export const instrumentKindEnum = pgEnum("instrument_kind", instrumentKinds);
+
+/**
+ * A clock or a link with its stated instability at 1 s (white FM) and its systematic uncertainty as
+ * named terms. Edited online by geodesists; every change is an audit event (the history).
+ */
+export const instruments = pgTable(
+  "instruments",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: campaignRef(),
+    kind: instrumentKindEnum("kind").notNull(),
+    name: text("name").notNull(),
+    description: text("description").notNull().default(""),
+    instabilityAt1s: doublePrecision("instability_at_1s").notNull(),
+    /** [{ name, value }] fractional, combined in quadrature. */
+    systematic: jsonb("systematic").notNull(),
+    notes: text("notes").notNull().default(""),
+    version: integer("version").notNull().default(1),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedBy: userRef("updated_by"),
+    deletedAt: timestamp("deleted_at", { withTimezone: true }),
+  },
+  (t) => [index("instruments_campaign_idx").on(t.campaignId)],
+);
+
+/** A section height difference brought in from a file (another crew's or an older levelling). */
+export const heightTies = pgTable(
+  "height_ties",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    campaignId: campaignRef(),
+    fromMark: text("from_mark").notNull(),
+    toMark: text("to_mark").notNull(),
+    deltaM: doublePrecision("delta_m").notNull(),
+    lengthKm: doublePrecision("length_km").notNull(),
+    /** Stated standard deviation, m; null: from the length with the adjustment's σ per √km. */
+    sigmaM: doublePrecision("sigma_m"),
+    source: text("source").notNull().default(""),
+    importedAt: createdAt(),
+    importedBy: userRef("imported_by"),
+    deletedAt: timestamp("deleted_at", { withTimezone: true }),
+  },
+  (t) => [index("height_ties_campaign_idx").on(t.campaignId)],
+);
+
+/** One least-squares adjustment of the campaign's levelling network, kept as computed. */
+export const levellingAdjustments = pgTable(
+  "levelling_adjustments",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    campaignId: campaignRef(),
+    computedAt: createdAt(),
+    computedBy: userRef("computed_by"),
+    options: jsonb("options").notNull(),
+    /** The AdjustmentView (shared/schemas/height-network.ts). */
+    result: jsonb("result").notNull(),
+  },
+  (t) => [index("levelling_adjustments_campaign_idx").on(t.campaignId, t.computedAt)],
+);
+
+/** A remote clock compared with a reference clock over a link, until a target height uncertainty. */
+export const comparisonRuns = pgTable(
+  "comparison_runs",
+  {
+    id: uuid("id").primaryKey(),
+    campaignId: campaignRef(),
+    name: text("name").notNull(),
+    remoteSiteId: uuid("remote_site_id")
+      .notNull()
+      .references(() => sites.id),
+    remoteClockId: uuid("remote_clock_id")
+      .notNull()
+      .references(() => instruments.id),
+    referenceClockId: uuid("reference_clock_id")
+      .notNull()
+      .references(() => instruments.id),
+    linkId: uuid("link_id").references(() => instruments.id),
+    linkName: text("link_name").notNull(),
+    /** The levelling mark at the remote clock's reference point ("" when not tied). */
+    remoteMark: text("remote_mark").notNull().default(""),
+    referenceHeightM: doublePrecision("reference_height_m"),
+    referenceHeightSigmaM: doublePrecision("reference_height_sigma_m"),
+    targetHeightUncertaintyM: doublePrecision("target_height_uncertainty_m").notNull(),
+    plannedUptime: doublePrecision("planned_uptime").notNull(),
+    notes: text("notes").notNull().default(""),
+    /** Grows with every data file added or removed; the analysis names the one it used. */
+    dataRevision: integer("data_revision").notNull().default(0),
+    version: integer("version").notNull().default(1),
+    createdAt: createdAt(),
+    createdBy: userRef("created_by"),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedBy: userRef("updated_by"),
+    deletedAt: timestamp("deleted_at", { withTimezone: true }),
+  },
+  (t) => [
+    index("comparison_runs_campaign_idx").on(t.campaignId),
+    index("comparison_runs_site_idx").on(t.remoteSiteId),
+  ],
+);
+
+export const seriesValueKindEnum = pgEnum("series_value_kind", seriesValueKinds);
+
+/** One uploaded file of a run's series: what was in it; the samples are in comparison_chunks. */
+export const comparisonFiles = pgTable(
+  "comparison_files",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    campaignId: campaignRef(),
+    runId: uuid("run_id")
+      .notNull()
+      .references(() => comparisonRuns.id, { onDelete: "cascade" }),
+    fileName: text("file_name").notNull(),
+    byteSize: bigint("byte_size", { mode: "number" }).notNull(),
+    valueKind: seriesValueKindEnum("value_kind").notNull(),
+    /** The nominal ratio as typed (decimal text, kept exact) for frequency-ratio files. */
+    nominalRatio: text("nominal_ratio"),
+    tau0S: doublePrecision("tau0_s").notNull(),
+    rowCount: integer("row_count").notNull(),
+    validCount: integer("valid_count").notNull(),
+    firstAt: timestamp("first_at", { withTimezone: true, precision: 6 }).notNull(),
+    lastAt: timestamp("last_at", { withTimezone: true, precision: 6 }).notNull(),
+    /** { count, missingSamples, list: [{ fromAt, toAt, missing }] } (first ones only). */
+    gaps: jsonb("gaps").notNull(),
+    uploadedAt: createdAt(),
+    uploadedBy: userRef("uploaded_by"),
+  },
+  (t) => [index("comparison_files_run_idx").on(t.runId, t.firstAt)],
+);
+
+/**
+ * The samples, in chunks of consecutive rows: times as Unix seconds and values as fractional
+ * frequency, both float8[] (one row per chunk instead of one per sample: see README, series storage).
+ */
+export const comparisonChunks = pgTable(
+  "comparison_chunks",
+  {
+    fileId: uuid("file_id")
+      .notNull()
+      .references(() => comparisonFiles.id, { onDelete: "cascade" }),
+    chunkNo: integer("chunk_no").notNull(),
+    times: doublePrecision("times").array().notNull(),
+    values: doublePrecision("values").array().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.fileId, t.chunkNo] })],
+);
+
+export const analysisStateEnum = pgEnum("analysis_state", analysisStates);
+
+/** The stability analysis of a run's whole series at one data revision (computed in a worker). */
+export const comparisonAnalyses = pgTable("comparison_analyses", {
+  runId: uuid("run_id")
+    .primaryKey()
+    .references(() => comparisonRuns.id, { onDelete: "cascade" }),
+  campaignId: campaignRef(),
+  dataRevision: integer("data_revision").notNull(),
+  state: analysisStateEnum("state").notNull(),
+  error: text("error"),
+  startedAt: timestamp("started_at", { withTimezone: true }).notNull(),
+  finishedAt: timestamp("finished_at", { withTimezone: true }),
+  /** The SeriesAnalysis (shared/schemas/comparison.ts) when done. */
+  result: jsonb("result"),
+});

@@ -30,6 +30,7 @@ export const presentBenchmark = (row: BenchmarkRow): BenchmarkView => ({
   heightM: row.heightM,
   heightSigmaM: row.heightSigmaM,
   heightSystem: row.heightSystem,
+  datum: row.datum,
   source: row.source,
   version: row.version,
   updatedAt: row.updatedAt.toISOString(),

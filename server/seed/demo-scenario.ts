@@ -88,7 +88,8 @@ export const demoBenchmarks = [
     longitudeDeg: 11.22691,
     heightM: 2869.412,
     heightSigmaM: 0.004,
-    heightSystem: "Demo national heights 2016 (normal heights)",
+    heightSystem: "Normal heights",
+    datum: "Demo national height datum, epoch 2016",
     source: "Invented for the Equipot demo",
   },
   {
@@ -98,7 +99,8 @@ export const demoBenchmarks = [
     longitudeDeg: 11.22935,
     heightM: 2841.077,
     heightSigmaM: 0.005,
-    heightSystem: "Demo national heights 2016 (normal heights)",
+    heightSystem: "Normal heights",
+    datum: "Demo national height datum, epoch 2016",
     source: "Invented for the Equipot demo",
   },
   {
@@ -108,7 +110,8 @@ export const demoBenchmarks = [
     longitudeDeg: 8.03874,
     heightM: 3.218,
     heightSigmaM: 0.002,
-    heightSystem: "Demo national heights 2016 (normal heights)",
+    heightSystem: "Normal heights",
+    datum: "Demo national height datum, epoch 2016",
     source: "Invented for the Equipot demo",
   },
   {
@@ -118,7 +121,8 @@ export const demoBenchmarks = [
     longitudeDeg: 9.45833,
     heightM: 211.634,
     heightSigmaM: 0.002,
-    heightSystem: "Demo national heights 2016 (normal heights)",
+    heightSystem: "Normal heights",
+    datum: "Demo national height datum, epoch 2016",
     source: "Invented for the Equipot demo",
   },
 ];

@@ -4,6 +4,7 @@ import request from "supertest";
 import type { Express } from "express";
 import type { Role } from "../../shared/permissions";
 import { createApp } from "../../server/app";
+import { createSciencePool, type SciencePool } from "../../server/workers/science-pool";
 import { memberships, users } from "../../server/db/schema";
 import { hashPassword } from "../../server/services/passwords";
 import type { Config } from "../../server/config";
@@ -17,6 +18,7 @@ export interface TestContext {
   config: Config;
   database: TestDatabase;
   mailQueued: { count: number };
+  science: SciencePool;
   close: () => Promise<void>;
 }
 
@@ -27,13 +29,19 @@ export async function createTestContext(
   await seedDemo(database.db, "test");
   const config = testConfig({ DATABASE_URL: database.url, ...overrides });
   const mailQueued = { count: 0 };
+  const science = createSciencePool(1);
   const app = createApp({
     config,
     db: database.db,
     log: pino({ level: "silent" }),
     onMailQueued: () => (mailQueued.count += 1),
+    science,
   });
-  return { app, config, database, mailQueued, close: () => database.drop() };
+  const close = async () => {
+    await science.close();
+    await database.drop();
+  };
+  return { app, config, database, mailQueued, science, close };
 }
 
 export const withHeader = (test: request.Test) => test.set(requestHeader.name, requestHeader.value);

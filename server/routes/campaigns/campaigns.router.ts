@@ -7,16 +7,19 @@ import { campaignMember, requireAction, scope } from "../../middleware/authorize
 import { parseInput } from "../../middleware/validate";
 import { createInvite } from "../../services/invites.service";
 import type { Storage } from "../../storage/storage";
+import type { SciencePool } from "../../workers/science-pool";
 import { attachmentsRouter } from "../attachments/attachments.router";
 import { checklistTemplatesRouter } from "../checklist-templates/checklist-templates.router";
 import { cratesBenchmarksRouter } from "../crates/crates-benchmarks.router";
 import { sitesRouter } from "../sites/sites.router";
+import { geodesyRouter } from "../geodesy/geodesy.router";
 
 export interface CampaignsRouterDeps {
   db: Db;
   linkBase: () => string;
   onMailQueued: () => void;
   storage: Storage;
+  science: SciencePool;
 }
 
 /** Mounted under /api/campaigns after authentication. */
@@ -25,6 +28,7 @@ export function campaignsRouter({
   linkBase,
   onMailQueued,
   storage,
+  science,
 }: CampaignsRouterDeps): Router {
   const router = Router();
 
@@ -49,5 +53,7 @@ export function campaignsRouter({
   router.use("/:campaignId", cratesBenchmarksRouter(db));
   router.use("/:campaignId/attachments", attachmentsRouter({ db, storage }));
   router.use("/:campaignId/checklist-templates", checklistTemplatesRouter(db));
+  // Geodesy: benchmarks, instruments, the levelling network and comparison runs.
+  router.use("/:campaignId", geodesyRouter({ db, science }));
   return router;
 }

@@ -25,7 +25,17 @@ const expected: Record<string, string[]> = {
     "handover.record",
     "alert.acknowledge",
   ],
-  geodesist: ["campaign.read", "site.write", "site.delete", "attachment.write", "levelling.record"],
+  geodesist: [
+    "campaign.read",
+    "site.write",
+    "site.delete",
+    "attachment.write",
+    "levelling.record",
+    "benchmark.manage",
+    "instrument.manage",
+    "levelling.adjust",
+    "comparison.manage",
+  ],
   reviewer: ["campaign.read"],
   admin: [
     "campaign.read",
@@ -44,6 +54,10 @@ const expected: Record<string, string[]> = {
     "leg.record",
     "handover.record",
     "alert.acknowledge",
+    "benchmark.manage",
+    "instrument.manage",
+    "levelling.adjust",
+    "comparison.manage",
   ],
 };
 
