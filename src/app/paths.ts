@@ -50,5 +50,17 @@ export const paths = {
     `${campaign(campaignId)}/crates/handovers/${encodeURIComponent(handoverId)}`,
   alerts: (campaignId: string) => `${campaign(campaignId)}/crates/alerts`,
   logistics: (campaignId: string) => `${campaign(campaignId)}/logistics`,
+  /** The geodesist's side: comparison runs, with benchmarks, instruments and the network beside. */
+  heights: (campaignId: string) => `${campaign(campaignId)}/heights`,
+  benchmarks: (campaignId: string) => `${campaign(campaignId)}/heights/benchmarks`,
+  instruments: (campaignId: string) => `${campaign(campaignId)}/heights/instruments`,
+  instrument: (campaignId: string, instrumentId: string) =>
+    `${campaign(campaignId)}/heights/instruments/${encodeURIComponent(instrumentId)}`,
+  heightNetwork: (campaignId: string) => `${campaign(campaignId)}/heights/network`,
+  newRun: (campaignId: string) => `${campaign(campaignId)}/heights/runs/new`,
+  run: (campaignId: string, runId: string) =>
+    `${campaign(campaignId)}/heights/runs/${encodeURIComponent(runId)}`,
+  editRun: (campaignId: string, runId: string) =>
+    `${campaign(campaignId)}/heights/runs/${encodeURIComponent(runId)}/edit`,
   device: "/device",
 } as const;

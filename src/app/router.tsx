@@ -31,6 +31,12 @@ import { CrateRoute } from "./routes/crate-route";
 import { HandoverRecordRoute, HandoverRoute } from "./routes/handover-route";
 import { AlertsRoute } from "./routes/alerts-route";
 import { LogisticsDashboardRoute } from "./routes/logistics-dashboard-route";
+import { HeightsRoute } from "./routes/heights-route";
+import { BenchmarksRoute } from "./routes/benchmarks-route";
+import { InstrumentRoute, InstrumentsRoute } from "./routes/instruments-route";
+import { HeightNetworkRoute } from "./routes/height-network-route";
+import { RunEditRoute, RunNewRoute } from "./routes/run-form-route";
+import { RunRoute } from "./routes/run-route";
 
 /** The crew starts at their site's board; everyone else at the sites. */
 function CampaignIndex() {
@@ -90,6 +96,14 @@ export const router = createBrowserRouter([
               { path: "crates/alerts", element: <AlertsRoute /> },
               { path: "crates/:crateId", element: <CrateRoute /> },
               { path: "logistics", element: <LogisticsDashboardRoute /> },
+              { path: "heights", element: <HeightsRoute /> },
+              { path: "heights/benchmarks", element: <BenchmarksRoute /> },
+              { path: "heights/instruments", element: <InstrumentsRoute /> },
+              { path: "heights/instruments/:instrumentId", element: <InstrumentRoute /> },
+              { path: "heights/network", element: <HeightNetworkRoute /> },
+              { path: "heights/runs/new", element: <RunNewRoute /> },
+              { path: "heights/runs/:runId", element: <RunRoute /> },
+              { path: "heights/runs/:runId/edit", element: <RunEditRoute /> },
             ],
           },
           { path: "*", element: <NotFoundRoute /> },

@@ -17,7 +17,8 @@ export interface TestServer {
 }
 
 export async function startTestServer(options: { seed?: boolean } = {}): Promise<TestServer> {
-  const staticDir = resolve("dist");
+  // EQUIPOT_STATIC_DIR lets parallel work build the client into its own folder.
+  const staticDir = resolve(process.env.EQUIPOT_STATIC_DIR ?? "dist");
   if (!existsSync(resolve(staticDir, "index.html"))) {
     throw new Error("dist/ is missing: run `npx vite build` first (npm test does it)");
   }

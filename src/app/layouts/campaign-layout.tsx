@@ -73,6 +73,9 @@ function CampaignNav({ campaign }: { campaign: CampaignContext }) {
       <NavLink to={paths.map(campaign.campaignId)} className={tabClass}>
         Map
       </NavLink>
+      <NavLink to={paths.heights(campaign.campaignId)} className={tabClass}>
+        Heights
+      </NavLink>
       <ConflictsTab campaignId={campaign.campaignId} />
       {can(campaign.role, "member.read") && (
         <NavLink to={paths.members(campaign.campaignId)} className={tabClass}>
