@@ -1,6 +1,5 @@
-import type { BenchmarkView } from "../../shared/schemas/benchmarks";
 import type { CrateView } from "../../shared/schemas/crates";
-import type { BenchmarkRow, CrateRow } from "../db/repositories/crates-benchmarks";
+import type { CrateRow } from "../db/repositories/crates-benchmarks";
 
 export const presentCrate = (row: CrateRow): CrateView => ({
   id: row.id,
@@ -18,20 +17,4 @@ export const presentCrate = (row: CrateRow): CrateView => ({
   version: row.version,
   updatedAt: row.updatedAt.toISOString(),
   deletedAt: row.deletedAt?.toISOString() ?? null,
-});
-
-export const presentBenchmark = (row: BenchmarkRow): BenchmarkView => ({
-  id: row.id,
-  campaignId: row.campaignId,
-  code: row.code,
-  description: row.description,
-  latitudeDeg: row.latitudeDeg,
-  longitudeDeg: row.longitudeDeg,
-  heightM: row.heightM,
-  heightSigmaM: row.heightSigmaM,
-  heightSystem: row.heightSystem,
-  datum: row.datum,
-  source: row.source,
-  version: row.version,
-  updatedAt: row.updatedAt.toISOString(),
 });

@@ -5,10 +5,13 @@ import {
   type AdjustmentInput,
   type AdjustmentOptions,
 } from "../../shared/science";
+import { analyseSeries, type AnalyseSeriesInput } from "../../shared/comparison/analyse-series";
 
 export const scienceTasks = {
   adjust: (input: { network: AdjustmentInput; options: AdjustmentOptions }) =>
     adjustLevellingNetwork(input.network, input.options),
+  /** The run's grid arrives transferred (its buffer moves to the worker, no copy). */
+  analyseSeries: (input: AnalyseSeriesInput) => analyseSeries(input),
 };
 
 export type ScienceTasks = typeof scienceTasks;

@@ -1,9 +1,8 @@
 import { and, asc, eq, gt, isNull } from "drizzle-orm";
 import type { Queryable } from "../client";
-import { benchmarks, crates } from "../schema";
+import { crates } from "../schema";
 
 export type CrateRow = typeof crates.$inferSelect;
-export type BenchmarkRow = typeof benchmarks.$inferSelect;
 
 export const listCrates = (q: Queryable, campaignId: string) =>
   q
@@ -69,10 +68,3 @@ export const cratesAfter = (q: Queryable, campaignId: string, cursor: number, li
     .where(and(eq(crates.campaignId, campaignId), gt(crates.changeSeq, cursor)))
     .orderBy(asc(crates.changeSeq))
     .limit(limit);
-
-export const listBenchmarks = (q: Queryable, campaignId: string) =>
-  q
-    .select()
-    .from(benchmarks)
-    .where(and(eq(benchmarks.campaignId, campaignId), isNull(benchmarks.deletedAt)))
-    .orderBy(asc(benchmarks.code));

@@ -2,15 +2,15 @@ import { Router } from "express";
 import { z } from "zod";
 import { crateCreateInput, crateUpdateInput } from "../../../shared/schemas/logistics";
 import type { Db } from "../../db/client";
-import { listBenchmarks, listCrates } from "../../db/repositories/crates-benchmarks";
+import { listCrates } from "../../db/repositories/crates-benchmarks";
 import { requireAction, scope } from "../../middleware/authorize";
 import { parseInput } from "../../middleware/validate";
-import { presentBenchmark, presentCrate } from "../../presenters/crate-benchmark";
+import { presentCrate } from "../../presenters/crate-benchmark";
 import { createCrate, deleteCrate, editCrate } from "../../services/crates.service";
 
 const crateIdParam = z.object({ crateId: z.uuid("Crate id must be a UUID") });
 
-/** Crates are edited here by logistics, online; tablets get them through the pull. Benchmarks are read-only. */
+/** Crates are edited here by logistics, online; tablets get them through the pull. Benchmarks: routes/geodesy. */
 export function cratesBenchmarksRouter(db: Db): Router {
   const router = Router({ mergeParams: true });
   router.get("/crates", requireAction("campaign.read"), async (req, res) => {
@@ -29,11 +29,6 @@ export function cratesBenchmarksRouter(db: Db): Router {
     const { crateId } = parseInput(crateIdParam, req.params);
     await deleteCrate(db, scope(req), crateId);
     res.status(204).end();
-  });
-  router.get("/benchmarks", requireAction("campaign.read"), async (req, res) => {
-    res.json({
-      benchmarks: (await listBenchmarks(db, scope(req).campaignId)).map(presentBenchmark),
-    });
   });
   return router;
 }

@@ -3,6 +3,7 @@
 import { useState, type ReactNode } from "react";
 import { Navigate, useParams } from "react-router-dom";
 import { can } from "../../../shared/permissions";
+import { SiteTimeLeft } from "../../features/comparison/components/site-time-left";
 import { SiteChecklists } from "../../features/checklists/components/site-checklists";
 import { CratesOnSite } from "../../features/field-entries/components/crates-on-site";
 import { EntryList } from "../../features/field-entries/components/entry-list";
@@ -49,22 +50,9 @@ function placedBy(legs: readonly LocalLeg[], siteId: string): Map<string, "here"
 }
 
 function TimeLeftCard() {
-  return (
-    <section
-      aria-label="Comparison time left"
-      className="flex flex-col gap-2 rounded-xl border-2 border-line bg-surface p-4"
-    >
-      <h2 className="text-sm font-semibold tracking-wide text-muted uppercase">Time left</h2>
-      <p className="flex items-center gap-2 text-lg font-semibold">
-        <StatusShape shape="ring" className="text-muted" />
-        No comparison run here yet
-      </p>
-      <p className="text-sm text-muted">
-        The estimate appears once comparison data for this site has been analysed, and stays
-        readable offline.
-      </p>
-    </section>
-  );
+  const { campaignId } = useCampaign();
+  const { siteId = "" } = useParams();
+  return <SiteTimeLeft campaignId={campaignId} siteId={siteId} />;
 }
 
 function AlertsCard({ count }: { count: number }) {
