@@ -68,7 +68,8 @@ function staticPwa(dir: string): RequestHandler[] {
   const fallback: RequestHandler = (req, res, next) => {
     if (req.method !== "GET" || req.path.startsWith("/api/")) return next();
     res.setHeader("Cache-Control", "no-cache");
-    res.sendFile(join(root, "index.html"));
+    // `root` keeps the dot-file check to the request path, so STATIC_DIR may sit under a dot folder.
+    res.sendFile("index.html", { root });
   };
   return [serve, fallback];
 }

@@ -61,6 +61,6 @@ test("imports ties, adjusts the network and shows heights and the global test", 
   await page.getByRole("table", { name: "Residuals" }).getByRole("rowheader").first().waitFor();
   expect(await seriousViolations(page)).toEqual([]);
   await screenshot(page, "height-network");
-  await page.screenshot({ path: "/tmp/h2-network.png", fullPage: true });
-  expect(problems).toEqual([]);
+  // The refused file is the one error the browser may log.
+  expect(problems.filter((p) => !p.includes("status of 422"))).toEqual([]);
 });

@@ -68,9 +68,11 @@ describe("the levelling network", () => {
     const none = await adjust();
     expect(none.status).toBe(422);
     expect((none.body as { error: { message: string } }).error.message).toMatch(/no observations/);
-    expect(
-      (await request(ctx.app).get(`${base}/levelling-adjustments/latest`).set(auth(field))).status,
-    ).toBe(404);
+    const latest = await request(ctx.app)
+      .get(`${base}/levelling-adjustments/latest`)
+      .set(auth(field));
+    expect(latest.status).toBe(200);
+    expect(latest.body).toEqual({ adjustment: null });
   });
 
   it("refuses the field crew's import, adjustment and delete but lets them read", async () => {

@@ -2,7 +2,6 @@ import { Router } from "express";
 import { z } from "zod";
 import { adjustmentOptions, heightTieImportInput } from "../../../shared/schemas/height-network";
 import { latestAdjustment, listAdjustments } from "../../db/repositories/height-network";
-import { notFound } from "../../http-errors";
 import { requireAction, scope } from "../../middleware/authorize";
 import { parseInput } from "../../middleware/validate";
 import { presentObservation } from "../../presenters/height-network";
@@ -54,9 +53,8 @@ export function heightNetworkRouter({ db, science }: GeodesyDeps): Router {
     res.status(201).json({ adjustment: await adjustNetwork(db, science, scope(req), options) });
   });
   router.get("/levelling-adjustments/latest", requireAction("campaign.read"), async (req, res) => {
-    const adjustment = await latestAdjustment(db, scope(req).campaignId);
-    if (adjustment === null) throw notFound("No adjustment of this network yet");
-    res.json({ adjustment });
+    // Never adjusted is a state the page shows, not an error: null with 200.
+    res.json({ adjustment: await latestAdjustment(db, scope(req).campaignId) });
   });
   router.get("/levelling-adjustments", requireAction("campaign.read"), async (req, res) => {
     const rows = await listAdjustments(db, scope(req).campaignId);

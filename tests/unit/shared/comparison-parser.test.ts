@@ -80,7 +80,7 @@ describe("series parser", () => {
 describe("exact frequency ratios", () => {
   it("keeps the 18th digit a double would lose", () => {
     // By hand: (1.000000000000000001 − 1)/1 = 1e-18; in doubles 1.000000000000000001 is 1, so 0.
-    expect(1.000000000000000001 / 1 - 1).toBe(0);
+    expect(Number("1.000000000000000001") / 1 - 1).toBe(0);
     const one = parseExactDecimal("1");
     const ratio = parseExactDecimal("1.000000000000000001");
     if (one === null || ratio === null) throw new Error("not read");

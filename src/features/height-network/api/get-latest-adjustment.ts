@@ -1,27 +1,21 @@
-// The latest kept adjustment, or null when the network was never adjusted (the server says 404).
+// The latest kept adjustment, or null when the network was never adjusted.
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { z } from "zod";
 import { adjustmentView, type AdjustmentView } from "../../../../shared/schemas/height-network";
 import { apiRequest } from "../../../lib/api";
-import { isApiError } from "../../../lib/api-error";
 import { campaignBase, heightNetworkKeys } from "./keys";
 
-const latestResponse = z.object({ adjustment: adjustmentView });
+const latestResponse = z.object({ adjustment: adjustmentView.nullable() });
 
 export async function getLatestAdjustment(
   campaignId: string,
   signal?: AbortSignal,
 ): Promise<AdjustmentView | null> {
-  try {
-    const res = await apiRequest(`${campaignBase(campaignId)}/levelling-adjustments/latest`, {
-      schema: latestResponse,
-      signal,
-    });
-    return res.adjustment;
-  } catch (error) {
-    if (isApiError(error) && error.status === 404) return null;
-    throw error;
-  }
+  const res = await apiRequest(`${campaignBase(campaignId)}/levelling-adjustments/latest`, {
+    schema: latestResponse,
+    signal,
+  });
+  return res.adjustment;
 }
 
 export function latestAdjustmentQueryOptions(campaignId: string) {
