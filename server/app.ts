@@ -126,6 +126,7 @@ export function createApp({
       onMailQueued,
       storage,
       science,
+      log,
     }),
   );
   api.use(

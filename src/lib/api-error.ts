@@ -1,4 +1,4 @@
-import type { ErrorCode, FieldIssue } from "../../shared/schemas";
+import type { ErrorCode, FieldIssue, FileRowIssue } from "../../shared/schemas";
 
 /** Codes of the server's error body, plus two the client makes itself. */
 export type ApiErrorCode = ErrorCode | "network" | "bad_response";
@@ -13,6 +13,8 @@ export class ApiError extends Error {
     readonly code: ApiErrorCode,
     message: string,
     readonly details: readonly FieldIssue[] = [],
+    /** A refused file's bad rows (code invalid_file). */
+    readonly rows: readonly FileRowIssue[] = [],
   ) {
     super(message);
   }

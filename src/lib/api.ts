@@ -89,8 +89,8 @@ async function readJson(response: Response): Promise<unknown> {
 export function apiErrorFrom(status: number, body: unknown): ApiError {
   const parsed = errorBody.safeParse(body);
   if (parsed.success) {
-    const { code, message, details } = parsed.data.error;
-    return new ApiError(status, code, message, details ?? []);
+    const { code, message, details, rows } = parsed.data.error;
+    return new ApiError(status, code, message, details ?? [], rows ?? []);
   }
   const code = fallbackCodes[status] ?? "internal";
   return new ApiError(status, code, `The server answered with status ${status}.`);

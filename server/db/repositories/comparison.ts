@@ -1,6 +1,6 @@
 // Comparison runs, their files and chunked samples, and the stored analysis: queries only, always
 // scoped by campaign.
-import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, getTableColumns, isNull, sql } from "drizzle-orm";
 import type { Queryable } from "../client";
 import {
   comparisonAnalyses,
@@ -77,9 +77,7 @@ export const findInstrument = async (q: Queryable, campaignId: string, id: strin
       .where(and(eq(instruments.campaignId, campaignId), eq(instruments.id, id)))
   )[0];
 
-const fileColumns = {
-  ...(({ ...c }) => c)(comparisonFiles._.columns),
-};
+const fileColumns = getTableColumns(comparisonFiles);
 
 export const listFiles = (
   q: Queryable,
@@ -92,6 +90,29 @@ export const listFiles = (
     .leftJoin(users, eq(users.id, comparisonFiles.uploadedBy))
     .where(and(eq(comparisonFiles.campaignId, campaignId), eq(comparisonFiles.runId, runId)))
     .orderBy(asc(comparisonFiles.firstAt));
+
+export const findFileWithName = async (
+  q: Queryable,
+  campaignId: string,
+  id: string,
+): Promise<ComparisonFileRow | undefined> =>
+  (
+    await q
+      .select({ ...fileColumns, uploadedByName: users.name })
+      .from(comparisonFiles)
+      .leftJoin(users, eq(users.id, comparisonFiles.uploadedBy))
+      .where(and(eq(comparisonFiles.campaignId, campaignId), eq(comparisonFiles.id, id)))
+  )[0];
+
+export const updateFile = (
+  q: Queryable,
+  id: string,
+  values: Partial<typeof comparisonFiles.$inferInsert>,
+) => q.update(comparisonFiles).set(values).where(eq(comparisonFiles.id, id));
+
+/** Removes the run's analysis (when no data is left). */
+export const deleteAnalysis = (q: Queryable, runId: string) =>
+  q.delete(comparisonAnalyses).where(eq(comparisonAnalyses.runId, runId));
 
 export async function insertFile(q: Queryable, values: typeof comparisonFiles.$inferInsert) {
   const [row] = await q.insert(comparisonFiles).values(values).returning();
@@ -112,14 +133,6 @@ export const deleteFile = async (q: Queryable, campaignId: string, runId: string
       )
       .returning({ id: comparisonFiles.id })
   ).length > 0;
-
-export const insertChunk = (
-  q: Queryable,
-  fileId: string,
-  chunkNo: number,
-  times: number[],
-  values: number[],
-) => q.insert(comparisonChunks).values({ fileId, chunkNo, times, values });
 
 /** The run's chunks in time order (files by first time, chunks by number). */
 export const runChunks = (q: Queryable, runId: string) =>

@@ -1,4 +1,5 @@
 import { Router } from "express";
+import type { Logger } from "pino";
 import { inviteInput } from "../../../shared/schemas/auth";
 import type { Db } from "../../db/client";
 import { listCampaignsOfUser, listMembers } from "../../db/repositories/campaigns";
@@ -20,6 +21,7 @@ export interface CampaignsRouterDeps {
   onMailQueued: () => void;
   storage: Storage;
   science: SciencePool;
+  log: Logger;
 }
 
 /** Mounted under /api/campaigns after authentication. */
@@ -29,6 +31,7 @@ export function campaignsRouter({
   onMailQueued,
   storage,
   science,
+  log,
 }: CampaignsRouterDeps): Router {
   const router = Router();
 
@@ -54,6 +57,6 @@ export function campaignsRouter({
   router.use("/:campaignId/attachments", attachmentsRouter({ db, storage }));
   router.use("/:campaignId/checklist-templates", checklistTemplatesRouter(db));
   // Geodesy: benchmarks, instruments, the levelling network and comparison runs.
-  router.use("/:campaignId", geodesyRouter({ db, science }));
+  router.use("/:campaignId", geodesyRouter({ db, science, log }));
   return router;
 }

@@ -1,4 +1,5 @@
 import { Router } from "express";
+import type { Logger } from "pino";
 import type { Db } from "../../db/client";
 import type { SciencePool } from "../../workers/science-pool";
 import { benchmarksRouter } from "./benchmarks.router";
@@ -9,6 +10,7 @@ import { instrumentsRouter } from "./instruments.router";
 export interface GeodesyDeps {
   db: Db;
   science: SciencePool;
+  log: Logger;
 }
 
 /** Mounted under /api/campaigns/:campaignId after the membership check. */
