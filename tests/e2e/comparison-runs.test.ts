@@ -6,7 +6,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { randomUUID } from "node:crypto";
 import { expect, test } from "vitest";
-import { screenshot, viewports } from "../helpers/browser";
+import { screenshot, viewports, watchConsole } from "../helpers/browser";
 import { tabletForFile } from "../helpers/tablet";
 import { apiCall, apiSignIn, demoCampaignName, openDemoSites, seriousViolations } from "./flows";
 
@@ -39,6 +39,7 @@ function whiteFmCsv(startUnixS: number, count: number, seed: number): string {
 
 test("a run is created, a series previewed and uploaded, and a second file moves the date", async () => {
   const { page, server } = tablet;
+  const problems = watchConsole(page);
   const session = await apiSignIn(server.baseUrl, "geodesist");
   const campaignId =
     session.memberships.find((m) => m.campaignName === demoCampaignName)?.campaignId ?? "";
@@ -55,7 +56,8 @@ test("a run is created, a series previewed and uploaded, and a second file moves
           kind: "clock",
           name,
           instabilityAt1s: 1e-15,
-          systematic: [{ name: "total", value: 2e-18 }],
+          // 2e-19 ≈ 1.8 mm of height per clock: the 5 mm target is reachable with time.
+          systematic: [{ name: "total", value: 2e-19 }],
         },
       },
     );
@@ -78,7 +80,8 @@ test("a run is created, a series previewed and uploaded, and a second file moves
   await page.getByRole("heading", { name: "Heights", level: 1 }).waitFor();
   expect(await seriousViolations(page)).toEqual([]);
   await page.getByRole("link", { name: "New run" }).click();
-  await page.getByLabel("Name").fill("Kestrel Ridge against Brennmoor");
+  await page.getByLabel("Name", { exact: true }).fill("Kestrel Ridge against Brennmoor");
+  await page.getByLabel("Link name").fill("Fibre link through the valley");
   await page.getByLabel("Remote site").selectOption({ label: "Kestrel Ridge hut" });
   await page.getByLabel("Remote clock").selectOption({ label: "Transportable ytterbium clock Y2" });
   await page.getByLabel("Reference clock").selectOption({ label: "Strontium lattice clock S1" });
@@ -88,7 +91,7 @@ test("a run is created, a series previewed and uploaded, and a second file moves
   await page.getByRole("heading", { name: "Kestrel Ridge against Brennmoor", level: 1 }).waitFor();
 
   // Preview before sending, then upload with progress, then the analysis.
-  await page.getByLabel("Series file").setInputFiles(first);
+  await page.getByLabel("Series file", { exact: true }).setInputFiles(first);
   const preview = page.getByTestId("preview");
   await preview.getByText("20,000 rows, 20,000 valid").waitFor({ timeout: 30_000 });
   await preview.getByTestId("preview-adev-chart").locator("canvas").waitFor();
@@ -99,18 +102,19 @@ test("a run is created, a series previewed and uploaded, and a second file moves
   const eta = page.getByTestId("expected-date");
   await eta.waitFor();
   const firstEta = await eta.textContent();
+  expect(problems).toEqual([]);
   await screenshot(page, "h4-run-page");
   expect(await seriousViolations(page)).toEqual([]);
 
   // The second week continues in time: more averaging, so less left and an earlier date.
-  await page.getByLabel("Series file").setInputFiles(second);
+  await page.getByLabel("Series file", { exact: true }).setInputFiles(second);
   await preview.getByText("20,000 rows, 20,000 valid").waitFor({ timeout: 30_000 });
   await page.getByRole("button", { name: "Upload" }).click();
   await page.getByText("Uploaded").waitFor({ timeout: 60_000 });
   await expect.poll(() => eta.textContent(), { timeout: 60_000 }).not.toBe(firstEta);
 
   // A malformed file: its bad lines by number, nothing stored.
-  await page.getByLabel("Series file").setInputFiles(broken);
+  await page.getByLabel("Series file", { exact: true }).setInputFiles(broken);
   await preview.getByText(/Line 3/).waitFor({ timeout: 30_000 });
   await page.getByRole("button", { name: "Upload" }).click();
   await page.getByText("File refused; nothing was stored").waitFor();

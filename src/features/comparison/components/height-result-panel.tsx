@@ -154,7 +154,7 @@ export function HeightResultPanel({ result }: { result: HeightResultView }) {
           {t.instabilitySource === "data"
             ? "Instability from the data (white-FM level fitted to the series)."
             : "Instability from the instruments' stated figures (no fit from the data yet)."}{" "}
-          Floor {formatMm(t.floorM, 2)}. As of {formatUtc(result.computedAt)}.
+          Floor {formatMm(t.floorM, 2)}. Counted from the last sample, {formatUtc(t.input.now)}.
         </p>
         <TimeToTargetChart t={t} />
       </section>

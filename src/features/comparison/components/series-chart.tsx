@@ -5,6 +5,7 @@ import type { SeriesAnalysis } from "../../../../shared/schemas/comparison";
 import { formatUtc } from "../../../lib/format";
 import { formatScientific } from "../lib/durations";
 import { chartHeightPx, ChartFrame, themeColour } from "./chart-frame";
+import { exponentLabels } from "../lib/axis-labels";
 
 export function SeriesChart({ display }: { display: SeriesAnalysis["display"] }) {
   const data = useMemo<uPlot.AlignedData>(
@@ -25,7 +26,7 @@ export function SeriesChart({ display }: { display: SeriesAnalysis["display"] })
           label: "fractional",
           stroke: ink,
           size: 80,
-          values: (_u, v) => v.map((x) => x.toExponential(1)),
+          values: (_u, v) => exponentLabels(v),
         },
       ],
       series: [

@@ -4,6 +4,7 @@ import type uPlot from "uplot";
 import type { SeriesAnalysisResult } from "../../../../shared/comparison";
 import { formatScientific } from "../lib/durations";
 import { chartHeightPx, ChartFrame, themeColour } from "./chart-frame";
+import { decadeLabels } from "../lib/axis-labels";
 
 type Stability = Pick<SeriesAnalysisResult, "adev" | "mdev" | "fit" | "noiseType">;
 
@@ -61,7 +62,7 @@ export function StabilityChart({ analysis, testId }: { analysis: Stability; test
             label: "deviation",
             stroke: ink,
             size: 80,
-            values: (_u, v) => v.map((x) => x.toExponential(0)),
+            values: (_u, v) => decadeLabels(v),
           },
         ],
         series: [

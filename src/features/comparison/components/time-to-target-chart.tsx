@@ -6,6 +6,7 @@ import type { HeightResultView } from "../../../../shared/schemas/comparison";
 import { formatDuration, formatMm } from "../lib/durations";
 import { tauGrid } from "../lib/tau-grid";
 import { chartHeightPx, ChartFrame, themeColour } from "./chart-frame";
+import { decadeMmLabels } from "../lib/axis-labels";
 
 type TimeToTarget = HeightResultView["timeToTarget"];
 
@@ -52,7 +53,7 @@ export function TimeToTargetChart({ t }: { t: TimeToTarget }) {
             label: "σ_H (mm)",
             stroke: ink,
             size: 70,
-            values: (_u, v) => v.map((m) => (m * 1000).toPrecision(2)),
+            values: (_u, v) => decadeMmLabels(v),
           },
         ],
         series: [

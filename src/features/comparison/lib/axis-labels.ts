@@ -1,0 +1,48 @@
+// Tick labels for uPlot axes. uPlot hands a log axis every split (1…9 × 10ᵏ) and null for the
+// ones it hides; labelling only the decades keeps a tablet-width axis readable.
+
+/** 10ᵏ as "10⁻¹⁵"; other splits of a log axis stay unlabelled. */
+export function decadeLabels(splits: readonly (number | null)[]): string[] {
+  return splits.map((v) => {
+    if (v === null || !(v > 0)) return "";
+    const k = Math.log10(v);
+    return Math.abs(k - Math.round(k)) < 1e-9 ? powerOfTen(Math.round(k)) : "";
+  });
+}
+
+const superscripts: Record<string, string> = {
+  "-": "⁻",
+  "0": "⁰",
+  "1": "¹",
+  "2": "²",
+  "3": "³",
+  "4": "⁴",
+  "5": "⁵",
+  "6": "⁶",
+  "7": "⁷",
+  "8": "⁸",
+  "9": "⁹",
+};
+
+export function powerOfTen(k: number): string {
+  return `10${String(k)
+    .split("")
+    .map((c) => superscripts[c] ?? c)
+    .join("")}`;
+}
+
+/** Metres on a log axis as millimetres at the decades: "0.1", "1", "1000". */
+export function decadeMmLabels(splitsM: readonly (number | null)[]): string[] {
+  return splitsM.map((v) => {
+    if (v === null || !(v > 0)) return "";
+    const k = Math.log10(v * 1000);
+    if (Math.abs(k - Math.round(k)) >= 1e-9) return "";
+    const mm = 10 ** Math.round(k);
+    return mm >= 1 ? mm.toLocaleString("en") : String(Number(mm.toPrecision(1)));
+  });
+}
+
+/** A linear axis of small numbers, "1.0e-15"; hidden splits stay empty. */
+export function exponentLabels(splits: readonly (number | null)[], digits = 1): string[] {
+  return splits.map((v) => (v === null ? "" : v === 0 ? "0" : v.toExponential(digits)));
+}
