@@ -18,6 +18,8 @@ import {
 } from "../db/schema";
 import { demoChecklists } from "./demo-checklists";
 import { demoBenchmarks, demoCrates, demoLegs } from "./demo-scenario";
+import { seedDemoGeodesy } from "./demo-geodesy";
+import { seedDemoNetwork } from "./demo-network";
 import { hashPassword } from "../services/passwords";
 
 export const demoPassword = "equipot-demo";
@@ -82,7 +84,7 @@ export async function seedDemo(db: Db, nodeEnv: string): Promise<boolean> {
     throw new Error("The demo seed never runs with NODE_ENV=production");
   if (!(await isDatabaseEmpty(db))) return false;
   const passwordHash = await hashPassword(demoPassword);
-  await db.transaction(async (tx) => {
+  const geodesy = await db.transaction(async (tx) => {
     const [campaign] = await tx.insert(campaigns).values(demoCampaign).returning();
     const [practice] = await tx
       .insert(campaigns)
@@ -173,6 +175,18 @@ export async function seedDemo(db: Db, nodeEnv: string): Promise<boolean> {
         changeSeq,
       });
     }
+    const geodesist = people.find((p) => p.email.startsWith("geodesist@"));
+    await seedDemoNetwork(tx, campaign.id, geodesist?.id ?? null);
+    const hut = demoSites.find((site) => site.kind === "mountain");
+    return {
+      campaignId: campaign.id,
+      site: { id: siteIds.get(hut?.name ?? "") ?? "", latitudeDeg: hut?.latitudeDeg ?? 0 },
+      userId: geodesist?.id ?? admin?.id ?? "",
+    };
   });
+  // Tests make their own instruments and runs; a demo for people gets one to look at. Through the
+  // real upload path, so after the campaign's own transaction.
+  if (nodeEnv !== "test")
+    await seedDemoGeodesy(db, geodesy.campaignId, geodesy.site, geodesy.userId);
   return true;
 }
