@@ -4,6 +4,7 @@
 import { writeFileSync } from "node:fs";
 import { cpus, loadavg, totalmem } from "node:os";
 import { printScienceRows, runScienceBench } from "./science";
+import { printSeriesStorageRows, runSeriesStorageBench } from "./series-storage";
 import { printSyncRows, runSyncBench } from "./sync";
 
 const machine = {
@@ -20,7 +21,12 @@ const science = await runScienceBench();
 printScienceRows(science);
 const sync = await runSyncBench();
 printSyncRows(sync);
-writeFileSync("bench/results.json", JSON.stringify({ machine, science, sync }, null, 2));
+const seriesStorage = await runSeriesStorageBench();
+printSeriesStorageRows(seriesStorage);
+writeFileSync(
+  "bench/results.json",
+  JSON.stringify({ machine, science, sync, seriesStorage }, null, 2),
+);
 console.log(
   `\nMachine: ${machine.cpu}, ${machine.cores} cores, ${machine.memoryGiB} GiB, Node ${machine.node}`,
 );
