@@ -1,12 +1,16 @@
 // The demo campaign's geodesy (invented): the Brennmoor laboratory clock, the transportable clock
 // EQ-T1 at the Kestrel Ridge hut, the fibre link between them, and one comparison run with two
 // days of a synthetic series at 10 s — white FM of 1.5e-15 at 1 s around the offset an 8 mm
-// higher hut would give, with a three-hour outage. Stored through the real upload path.
+// higher hut would give, with a three-hour outage. Stored through the real upload path, and the
+// levelling network adjusted once (the ties are seeded with the campaign).
 import { Readable } from "node:stream";
 import { frequencyFromHeightDifference } from "../../shared/science";
 import type { Db } from "../db/client";
 import { instruments } from "../db/schema";
+import { adjustmentOptions } from "../../shared/schemas/height-network";
 import { createRun } from "../services/comparison/runs";
+import { adjustNetwork } from "../services/height-network/adjust";
+import { createSciencePool } from "../workers/science-pool";
 import { uploadSeries } from "../services/comparison/upload";
 
 export const demoInstruments = [
@@ -123,4 +127,11 @@ export async function seedDemoGeodesy(
     Readable.from([demoSeriesCsv(fractionalFrequency)]),
   );
   if (!outcome.ok) throw new Error(`the demo series was refused: ${outcome.message}`);
+  // The network adjusted once, so the run's result shows the levelled height from the start.
+  const science = createSciencePool(1);
+  try {
+    await adjustNetwork(db, science, scope, adjustmentOptions.parse({}));
+  } finally {
+    await science.close();
+  }
 }
