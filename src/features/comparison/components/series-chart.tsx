@@ -5,7 +5,7 @@ import type { SeriesAnalysis } from "../../../../shared/schemas/comparison";
 import { formatUtc } from "../../../lib/format";
 import { formatScientific } from "../lib/durations";
 import { chartHeightPx, ChartFrame, themeColour } from "./chart-frame";
-import { exponentLabels } from "../lib/axis-labels";
+import { exponentLabels, utcTimeLabels } from "../lib/axis-labels";
 
 export function SeriesChart({ display }: { display: SeriesAnalysis["display"] }) {
   const data = useMemo<uPlot.AlignedData>(
@@ -21,7 +21,7 @@ export function SeriesChart({ display }: { display: SeriesAnalysis["display"] })
       height: chartHeightPx,
       tzDate: (ts) => new Date(ts * 1000 + new Date(ts * 1000).getTimezoneOffset() * 60_000),
       axes: [
-        { label: "time (UTC)", stroke: ink },
+        { label: "time (UTC)", stroke: ink, values: (_u, v) => utcTimeLabels(v) },
         {
           label: "fractional",
           stroke: ink,

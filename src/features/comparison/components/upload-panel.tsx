@@ -139,7 +139,8 @@ export function UploadPanel({ campaignId, runId }: { campaignId: string; runId: 
         Add a series file
       </h2>
       <p className="text-sm text-muted">
-        CSV: a time column (ISO 8601 with Z or an offset, or MJD) and a value column; an optional validity flag.
+        CSV: a time column (ISO 8601 with Z or an offset, or MJD) and a value column; an optional
+        validity flag.
       </p>
       <div className="flex flex-col gap-1">
         <label htmlFor="series-file" className="font-semibold">

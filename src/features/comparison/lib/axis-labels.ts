@@ -42,7 +42,30 @@ export function decadeMmLabels(splitsM: readonly (number | null)[]): string[] {
   });
 }
 
-/** A linear axis of small numbers, "1.0e-15"; hidden splits stay empty. */
-export function exponentLabels(splits: readonly (number | null)[], digits = 1): string[] {
-  return splits.map((v) => (v === null ? "" : v === 0 ? "0" : v.toExponential(digits)));
+/**
+ * A linear axis of small numbers, "1.0e-15"; hidden splits stay empty. Digits are added until
+ * neighbouring ticks differ (a series far from zero, 2.898e-13 … 2.902e-13, needs four).
+ */
+export function exponentLabels(splits: readonly (number | null)[], minDigits = 1): string[] {
+  const label = (digits: number) =>
+    splits.map((v) => (v === null ? "" : v === 0 ? "0" : v.toExponential(digits)));
+  for (let digits = minDigits; digits < 8; digits++) {
+    const labels = label(digits).filter((l) => l !== "");
+    if (new Set(labels).size === labels.length) return label(digits);
+  }
+  return label(8);
+}
+
+const pad = (n: number) => String(n).padStart(2, "0");
+
+/** Unix seconds on a time axis, in UTC, 24-hour: "13:00", and the date ("07-13") at midnight. */
+export function utcTimeLabels(splits: readonly (number | null)[]): string[] {
+  return splits.map((v) => {
+    if (v === null) return "";
+    const d = new Date(v * 1000);
+    const hm = `${pad(d.getUTCHours())}:${pad(d.getUTCMinutes())}`;
+    return hm === "00:00" && d.getUTCSeconds() === 0
+      ? `${pad(d.getUTCMonth() + 1)}-${pad(d.getUTCDate())}`
+      : hm;
+  });
 }
