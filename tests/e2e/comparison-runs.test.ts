@@ -1,7 +1,7 @@
 // The geodesist's comparison run: create it, preview and upload a series file, see the analysis
 // and the height result, then a second file continuing in time changes the time left. A malformed
 // file is refused with its line numbers.
-import { mkdtemp, writeFile } from "node:fs/promises";
+import { mkdtemp, readFile, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { randomUUID } from "node:crypto";
@@ -103,6 +103,15 @@ test("a run is created, a series previewed and uploaded, and a second file moves
   await eta.waitFor();
   const firstEta = await eta.textContent();
   expect(problems).toEqual([]);
+  // The result leaves Equipot with the caution on its first line.
+  const download = page.waitForEvent("download");
+  await page.getByRole("button", { name: "Download result (CSV)" }).click();
+  const saved = await (await download).path();
+  const exported = await readFile(saved, "utf8");
+  expect(exported.split("\n")[0]).toBe(
+    "# These are campaign results, not official heights. Official heights come from the national survey authority.",
+  );
+  expect(exported).toContain("height difference (clocks)");
   await screenshot(page, "h4-run-page");
   expect(await seriousViolations(page)).toEqual([]);
 

@@ -21,7 +21,15 @@ import { messageOf } from "../../lib/api-error";
 import { useCampaign } from "../layouts/campaign-layout";
 import { paths } from "../paths";
 
-function Results({ campaignId, runId }: { campaignId: string; runId: string }) {
+function Results({
+  campaignId,
+  runId,
+  runName,
+}: {
+  campaignId: string;
+  runId: string;
+  runName: string;
+}) {
   const analysis = useAnalysis(campaignId, runId);
   const result = useResult(campaignId, runId);
   const state = analysis.data?.state;
@@ -43,7 +51,7 @@ function Results({ campaignId, runId }: { campaignId: string; runId: string }) {
       )}
       {state === "none" && <p className="text-muted">No data yet: upload a series file.</p>}
       {result.data !== undefined ? (
-        <HeightResultPanel result={result.data} />
+        <HeightResultPanel result={result.data} runName={runName} />
       ) : result.isPending ? (
         <Loading label="Reading the height result…" />
       ) : (
@@ -135,7 +143,7 @@ export function RunRoute() {
           )}
         </section>
         {manage && <UploadPanel campaignId={campaignId} runId={r.id} />}
-        <Results campaignId={campaignId} runId={r.id} />
+        <Results campaignId={campaignId} runId={r.id} runName={r.name} />
       </div>
     </>
   );

@@ -1,5 +1,8 @@
 // The height result: ΔC and ΔH from the clocks, the budget, the levelled comparison, time to target.
+import { Button } from "../../../components/button";
 import { StatusShape } from "../../../components/status-shape";
+import { downloadBlob } from "../../../lib/download";
+import { resultCsv } from "../lib/result-export";
 import { formatLocalBeside, formatUtc } from "../../../lib/format";
 import type { HeightResultView } from "../../../../shared/schemas/comparison";
 import {
@@ -51,7 +54,13 @@ function TimeLeftFacts({ t }: { t: HeightResultView["timeToTarget"] }) {
   );
 }
 
-export function HeightResultPanel({ result }: { result: HeightResultView }) {
+export function HeightResultPanel({
+  result,
+  runName,
+}: {
+  result: HeightResultView;
+  runName: string;
+}) {
   const { clock, levelled, comparison, timeToTarget: t } = result;
   return (
     <div className="flex flex-col gap-4">
@@ -82,9 +91,22 @@ export function HeightResultPanel({ result }: { result: HeightResultView }) {
         aria-labelledby="budget-heading"
         className="rounded-xl border-2 border-line bg-surface p-4"
       >
-        <h3 id="budget-heading" className="mb-2 text-lg font-semibold">
-          Uncertainty budget
-        </h3>
+        <div className="mb-2 flex flex-wrap items-center justify-between gap-2">
+          <h3 id="budget-heading" className="text-lg font-semibold">
+            Uncertainty budget
+          </h3>
+          <Button
+            tone="quiet"
+            onClick={() =>
+              downloadBlob(
+                "equipot-height-result.csv",
+                new Blob([resultCsv(runName, result)], { type: "text/csv" }),
+              )
+            }
+          >
+            Download result (CSV)
+          </Button>
+        </div>
         <table className="w-full text-left tabular-nums">
           <thead>
             <tr>
