@@ -1,10 +1,15 @@
 import type { ReactNode } from "react";
 import { PersistQueryClientProvider } from "@tanstack/react-query-persist-client";
-import { persistOptions, queryClient } from "../lib/query-client";
+import { markCacheRestored, persistOptions, queryClient } from "../lib/query-client";
 
 export function AppProviders({ children }: { children: ReactNode }) {
   return (
-    <PersistQueryClientProvider client={queryClient} persistOptions={persistOptions}>
+    <PersistQueryClientProvider
+      client={queryClient}
+      persistOptions={persistOptions}
+      onSuccess={markCacheRestored}
+      onError={markCacheRestored}
+    >
       {children}
     </PersistQueryClientProvider>
   );

@@ -135,4 +135,28 @@ test("a run is created, a series previewed and uploaded, and a second file moves
   expect(await page.getByRole("list", { name: "Series files" }).getByRole("listitem").count()).toBe(
     2,
   );
+
+  // The field crew's site board shows the time left, and still does offline after a reload.
+  const sites = await apiCall(
+    server.baseUrl,
+    session.accessToken,
+    "GET",
+    `/campaigns/${campaignId}/sites`,
+  );
+  const hut = (sites.json as { sites: { id: string; name: string }[] }).sites.find(
+    (x) => x.name === "Kestrel Ridge hut",
+  );
+  const boardEta = (await eta.textContent()) ?? "";
+  await page.goto(`${server.baseUrl}/campaigns/${campaignId}/sites/${hut?.id ?? ""}`);
+  const card = page.getByTestId("time-left-card");
+  await card.getByText("Kestrel Ridge against Brennmoor · target 5.0 mm").waitFor();
+  await card.getByText(boardEta.split(" (")[0] ?? "").waitFor();
+  await page.waitForFunction(() => navigator.serviceWorker.controller !== null);
+  // No waiting for the throttled cache save: leaving the page must write what was just read.
+  await tablet.profile.context.setOffline(true);
+  await page.reload();
+  await card.getByText(/Offline: last seen online at/).waitFor();
+  await card.getByText("Kestrel Ridge against Brennmoor · target 5.0 mm").waitFor();
+  await screenshot(page, "h4-site-board-offline");
+  await tablet.profile.context.setOffline(false);
 });
