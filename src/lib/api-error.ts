@@ -34,6 +34,25 @@ export function isApiError(value: unknown): value is ApiError {
   return value instanceof ApiError;
 }
 
+/** A refused file's problems, each at its 1-based row or line (0 or less: the whole file). */
+export interface RefusedFile {
+  message: string;
+  rows: { row: number; field: string; message: string }[];
+}
+
+/** The refusal when `error` is a 422 invalid_file answer (nothing was stored), otherwise null. */
+export function refusedFileOf(error: unknown): RefusedFile | null {
+  if (!(error instanceof ApiError) || error.code !== "invalid_file") return null;
+  return {
+    message: error.message,
+    rows: error.rows.map((r) => ({
+      row: r.row ?? r.line ?? 0,
+      field: r.field,
+      message: r.message,
+    })),
+  };
+}
+
 /** A message a person can read, whatever was thrown. */
 export function messageOf(error: unknown): string {
   if (error instanceof ApiError) return error.message;

@@ -1,7 +1,7 @@
 // The API client: bearer token, one refresh on 401, typed errors.
 import { afterEach, beforeEach, describe, expect, test, vi } from "vitest";
 import { z } from "zod";
-import { ApiError } from "../../../src/lib/api-error";
+import { ApiError, refusedFileOf } from "../../../src/lib/api-error";
 import {
   apiRequest,
   noContent,
@@ -123,6 +123,38 @@ describe("apiRequest", () => {
       message: "Some values were refused",
       details: [{ path: "latitudeDeg", message: "Latitude must be between −90° and 90°" }],
     });
+  });
+
+  test("a refused file carries its rows, by row or by line, and reads as a refusal", async () => {
+    stubFetch(() =>
+      json(422, {
+        error: {
+          code: "invalid_file",
+          message: "2 rows were refused; nothing was stored",
+          rows: [
+            { row: 3, field: "latitude_deg", message: "Latitude must be a number" },
+            { line: 7, field: "value", message: "Value is not a number" },
+          ],
+        },
+      }),
+    );
+    const error: unknown = await apiRequest("/import", {
+      method: "POST",
+      body: {},
+      schema: answer,
+    }).catch((e: unknown) => e);
+    expect(refusedFileOf(error)).toEqual({
+      message: "2 rows were refused; nothing was stored",
+      rows: [
+        { row: 3, field: "latitude_deg", message: "Latitude must be a number" },
+        { row: 7, field: "value", message: "Value is not a number" },
+      ],
+    });
+  });
+
+  test("other failures are not file refusals", () => {
+    expect(refusedFileOf(new ApiError(422, "validation_failed", "No"))).toBeNull();
+    expect(refusedFileOf(new Error("x"))).toBeNull();
   });
 
   test("an error without the usual body still becomes a typed ApiError", async () => {

@@ -5,8 +5,8 @@ import { maxBenchmarkRows } from "../../../../shared/benchmark-import";
 import { Button } from "../../../components/button";
 import { Notice } from "../../../components/notice";
 import { StatusShape } from "../../../components/status-shape";
-import { messageOf } from "../../../lib/api-error";
-import { BenchmarkFileRefused, useImportBenchmarks } from "../api/import-benchmarks";
+import { messageOf, refusedFileOf } from "../../../lib/api-error";
+import { useImportBenchmarks } from "../api/import-benchmarks";
 import {
   describeRowProblem,
   formatOfFileName,
@@ -43,7 +43,7 @@ export function ImportPanel({ campaignId }: { campaignId: string }) {
       onExisting: update ? "update" : "refuse",
     });
   };
-  const refused = importing.error instanceof BenchmarkFileRefused ? importing.error : null;
+  const refused = refusedFileOf(importing.error);
   const format = chosen?.format ?? "csv";
   return (
     <section aria-labelledby="benchmark-import-heading" className="flex flex-col gap-3">

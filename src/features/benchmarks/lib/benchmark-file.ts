@@ -1,6 +1,6 @@
 // Which reader the server should use for a chosen file, and how a refused row is named for people:
 // CSV problems by line (the header is line 1), GeoJSON ones by feature, whole-file ones as such.
-import type { ImportRowError } from "../../../../shared/schemas/benchmarks";
+import type { RefusedFile } from "../../../lib/api-error";
 
 export type BenchmarkFileFormat = "csv" | "geojson";
 
@@ -13,7 +13,10 @@ export function formatOfFileName(fileName: string): BenchmarkFileFormat | null {
 }
 
 /** "Line 3, latitude_deg: …", "Feature 2, geometry: …" or "The file: …". */
-export function describeRowProblem(format: BenchmarkFileFormat, problem: ImportRowError): string {
+export function describeRowProblem(
+  format: BenchmarkFileFormat,
+  problem: RefusedFile["rows"][number],
+): string {
   const where =
     problem.row <= 0 || problem.field === "file"
       ? "The file"

@@ -3,8 +3,8 @@
 import { useState } from "react";
 import { Button } from "../../../components/button";
 import { Notice } from "../../../components/notice";
-import { messageOf } from "../../../lib/api-error";
-import { TieFileRefused, useImportTies } from "../api/import-ties";
+import { messageOf, refusedFileOf } from "../../../lib/api-error";
+import { useImportTies } from "../api/import-ties";
 
 /** The server checks every row; above this the JSON body limit would refuse it anyway. */
 const maxFileBytes = 900_000;
@@ -17,7 +17,7 @@ export function ImportPanel({ campaignId }: { campaignId: string }) {
     if (file === null) return;
     importing.mutate({ fileName: file.name, content: await file.text() });
   };
-  const refused = importing.error instanceof TieFileRefused ? importing.error : null;
+  const refused = refusedFileOf(importing.error);
   return (
     <section aria-labelledby="import-heading" className="flex flex-col gap-3">
       <h2 id="import-heading" className="text-xl font-semibold">
