@@ -52,3 +52,28 @@ export function parseDecimal(value: unknown): number {
   if (cleaned === "" || !/^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(cleaned)) return Number.NaN;
   return Number(cleaned);
 }
+
+const superscriptOf: Readonly<Record<string, string>> = Object.fromEntries(
+  [..."0123456789-+"].map((c, i) => [c, "⁰¹²³⁴⁵⁶⁷⁸⁹⁻⁺"[i] ?? c]),
+);
+/** "⁻¹⁸" → "-18": superscript digits and signs back to ASCII. */
+export const asciiOfSuperscript: Readonly<Record<string, string>> = Object.fromEntries(
+  Object.entries(superscriptOf).map(([ascii, sup]) => [sup, ascii]),
+);
+
+/** 10ᵏ as "10⁻¹⁵". */
+export function powerOfTen(k: number): string {
+  return `10${[...String(k)].map((c) => superscriptOf[c] ?? c).join("")}`;
+}
+
+/**
+ * "1.23 × 10⁻¹⁵" with `digits` significant figures, kept as a measure of precision; `trimZeros`
+ * drops trailing zeros, for values shown as they were typed ("1.2 × 10⁻¹⁸"). 0 stays "0".
+ */
+export function formatScientific(value: number, digits = 3, { trimZeros = false } = {}): string {
+  if (!Number.isFinite(value)) return "—";
+  if (value === 0) return "0";
+  const [mantissa = "", exponent = "0"] = value.toExponential(digits - 1).split("e");
+  const shown = trimZeros && mantissa.includes(".") ? mantissa.replace(/\.?0+$/, "") : mantissa;
+  return `${shown.replace("-", "−")} × ${powerOfTen(Number(exponent))}`;
+}

@@ -3,9 +3,9 @@ import {
   decadeLabels,
   decadeMmLabels,
   exponentLabels,
-  powerOfTen,
   utcTimeLabels,
 } from "../../../src/features/comparison/lib/axis-labels";
+import { powerOfTen } from "../../../src/lib/format";
 
 describe("axis labels", () => {
   it("labels only the decades of a log axis and leaves hidden splits empty", () => {

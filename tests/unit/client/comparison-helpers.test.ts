@@ -1,10 +1,7 @@
 import { describe, expect, test } from "vitest";
 import { createLineSplitter, readLines } from "../../../src/features/comparison/lib/line-slicer";
-import {
-  formatDuration,
-  formatMm,
-  formatScientific,
-} from "../../../src/features/comparison/lib/durations";
+import { formatDuration, formatMm } from "../../../src/features/comparison/lib/durations";
+import { formatScientific } from "../../../src/lib/format";
 import { tauGrid, tauGridEnd } from "../../../src/features/comparison/lib/tau-grid";
 import { draftFromRun, fieldsFromDraft } from "../../../src/features/comparison/lib/run-draft";
 

@@ -1,17 +1,12 @@
-// A uPlot chart loaded on demand, with a text alternative and a table of the same numbers behind a
-// toggle. uPlot draws on a canvas, so the theme's colours are read from the page's CSS variables.
-import { useEffect, useRef, useState, type ReactNode } from "react";
+// A uPlot chart with a title, a text alternative and a table of the same numbers behind a toggle.
+import { useState, type ReactNode } from "react";
 import type uPlot from "uplot";
 import { Button } from "../../../components/button";
 import { Loading } from "../../../components/loading";
 import { Notice } from "../../../components/notice";
+import { useUplot } from "../../../components/charts/use-uplot";
 
 export const chartHeightPx = 300;
-
-export function themeColour(name: string, fallback: string): string {
-  const value = getComputedStyle(document.documentElement).getPropertyValue(`--eq-${name}`).trim();
-  return value === "" ? fallback : value;
-}
 
 interface ChartFrameProps {
   title: string;
@@ -26,34 +21,8 @@ interface ChartFrameProps {
 
 export function ChartFrame(props: ChartFrameProps) {
   const { title, description, options, data, table, caption, testId } = props;
-  const box = useRef<HTMLDivElement>(null);
-  const [state, setState] = useState<"loading" | "ready" | "failed">("loading");
+  const { box, state } = useUplot(options, data, chartHeightPx);
   const [showTable, setShowTable] = useState(false);
-
-  useEffect(() => {
-    const element = box.current;
-    if (element === null) return;
-    let plot: uPlot | null = null;
-    let gone = false;
-    const resize = new ResizeObserver(() =>
-      plot?.setSize({ width: element.clientWidth, height: chartHeightPx }),
-    );
-    import("./uplot-loader")
-      .then(({ default: UPlot }) => {
-        if (gone) return;
-        plot = new UPlot(options(UPlot, element.clientWidth || 640), data, element);
-        resize.observe(element);
-        setState("ready");
-      })
-      .catch(() => {
-        if (!gone) setState("failed");
-      });
-    return () => {
-      gone = true;
-      resize.disconnect();
-      plot?.destroy();
-    };
-  }, [options, data]);
 
   return (
     <figure className="flex min-w-0 flex-col gap-2 rounded-xl border-2 border-line bg-surface p-3">

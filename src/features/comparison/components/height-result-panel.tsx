@@ -3,14 +3,9 @@ import { Button } from "../../../components/button";
 import { StatusShape } from "../../../components/status-shape";
 import { downloadBlob } from "../../../lib/download";
 import { resultCsv } from "../lib/result-export";
-import { formatLocalBeside, formatUtc } from "../../../lib/format";
+import { formatLocalBeside, formatScientific, formatUtc } from "../../../lib/format";
 import type { HeightResultView } from "../../../../shared/schemas/comparison";
-import {
-  formatDuration,
-  formatHeightWithSigma,
-  formatMm,
-  formatScientific,
-} from "../lib/durations";
+import { formatDuration, formatHeightWithSigma, formatMm } from "../lib/durations";
 import { TimeToTargetChart } from "./time-to-target-chart";
 
 function Fact({ term, children }: { term: string; children: React.ReactNode }) {

@@ -3,8 +3,9 @@ import { useCallback, useMemo } from "react";
 import type uPlot from "uplot";
 import type { SeriesAnalysis } from "../../../../shared/schemas/comparison";
 import { formatUtc } from "../../../lib/format";
-import { formatScientific } from "../lib/durations";
-import { chartHeightPx, ChartFrame, themeColour } from "./chart-frame";
+import { formatScientific } from "../../../lib/format";
+import { themeColour } from "../../../components/charts/use-uplot";
+import { chartHeightPx, ChartFrame } from "./chart-frame";
 import { exponentLabels, utcTimeLabels } from "../lib/axis-labels";
 
 export function SeriesChart({ display }: { display: SeriesAnalysis["display"] }) {

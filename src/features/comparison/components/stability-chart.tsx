@@ -2,8 +2,9 @@
 import { useCallback, useMemo } from "react";
 import type uPlot from "uplot";
 import type { SeriesAnalysisResult } from "../../../../shared/comparison";
-import { formatScientific } from "../lib/durations";
-import { chartHeightPx, ChartFrame, themeColour } from "./chart-frame";
+import { formatScientific } from "../../../lib/format";
+import { themeColour } from "../../../components/charts/use-uplot";
+import { chartHeightPx, ChartFrame } from "./chart-frame";
 import { decadeLabels } from "../lib/axis-labels";
 
 type Stability = Pick<SeriesAnalysisResult, "adev" | "mdev" | "fit" | "noiseType">;

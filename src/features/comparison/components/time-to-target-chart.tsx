@@ -5,7 +5,8 @@ import { heightUncertaintyAt } from "../../../../shared/science";
 import type { HeightResultView } from "../../../../shared/schemas/comparison";
 import { formatDuration, formatMm } from "../lib/durations";
 import { tauGrid } from "../lib/tau-grid";
-import { chartHeightPx, ChartFrame, themeColour } from "./chart-frame";
+import { themeColour } from "../../../components/charts/use-uplot";
+import { chartHeightPx, ChartFrame } from "./chart-frame";
 import { decadeMmLabels } from "../lib/axis-labels";
 
 type TimeToTarget = HeightResultView["timeToTarget"];

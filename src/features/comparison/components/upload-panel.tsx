@@ -9,7 +9,7 @@ import type { SeriesRowError, SeriesValueKind } from "../../../../shared/schemas
 import { FileRefused, useUploadSeries } from "../api/upload-file";
 import { usePreview, type PreviewState } from "../hooks/use-preview";
 import type { PreviewRequest } from "../worker/preview-protocol";
-import { formatScientific } from "../lib/durations";
+import { formatScientific } from "../../../lib/format";
 import { StabilityChart } from "./stability-chart";
 
 const unixIso = (t: number) => new Date(t * 1000).toISOString();

@@ -1,5 +1,6 @@
 // Tick labels for uPlot axes. uPlot hands a log axis every split (1…9 × 10ᵏ) and null for the
 // ones it hides; labelling only the decades keeps a tablet-width axis readable.
+import { powerOfTen } from "../../../lib/format";
 
 /** 10ᵏ as "10⁻¹⁵"; other splits of a log axis stay unlabelled. */
 export function decadeLabels(splits: readonly (number | null)[]): string[] {
@@ -8,27 +9,6 @@ export function decadeLabels(splits: readonly (number | null)[]): string[] {
     const k = Math.log10(v);
     return Math.abs(k - Math.round(k)) < 1e-9 ? powerOfTen(Math.round(k)) : "";
   });
-}
-
-const superscripts: Record<string, string> = {
-  "-": "⁻",
-  "0": "⁰",
-  "1": "¹",
-  "2": "²",
-  "3": "³",
-  "4": "⁴",
-  "5": "⁵",
-  "6": "⁶",
-  "7": "⁷",
-  "8": "⁸",
-  "9": "⁹",
-};
-
-export function powerOfTen(k: number): string {
-  return `10${String(k)
-    .split("")
-    .map((c) => superscripts[c] ?? c)
-    .join("")}`;
 }
 
 /** Metres on a log axis as millimetres at the decades: "0.1", "1", "1000". */

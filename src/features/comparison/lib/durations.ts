@@ -19,32 +19,6 @@ export function formatDuration(seconds: number): string {
   return h === 24 ? `${d + 1} d` : h === 0 ? `${d} d` : `${d} d ${h} h`;
 }
 
-const superscripts: Record<string, string> = {
-  "-": "⁻",
-  "0": "⁰",
-  "1": "¹",
-  "2": "²",
-  "3": "³",
-  "4": "⁴",
-  "5": "⁵",
-  "6": "⁶",
-  "7": "⁷",
-  "8": "⁸",
-  "9": "⁹",
-};
-
-/** "1.23 × 10⁻¹⁵" (three significant figures); 0 stays "0". */
-export function formatScientific(value: number, digits = 3): string {
-  if (!Number.isFinite(value)) return "—";
-  if (value === 0) return "0";
-  const [mantissa = "", exponent = "0"] = value.toExponential(digits - 1).split("e");
-  const exp = String(Number(exponent))
-    .split("")
-    .map((c) => superscripts[c] ?? c)
-    .join("");
-  return `${mantissa.replace("-", "−")} × 10${exp}`;
-}
-
 /** Metres shown in millimetres: "12.3 mm". */
 export function formatMm(metres: number, digits = 1): string {
   if (!Number.isFinite(metres)) return "—";

@@ -1,19 +1,14 @@
 // The crate's temperatures over time (UTC axis), the allowed band shaded between its two limits and
-// readings outside it marked with dots. uPlot draws on a canvas, so the theme's colours are read
-// from the page's CSS variables when the chart is made.
-import { useEffect, useRef, useState } from "react";
+// readings outside it marked with dots.
+import { useCallback, useMemo } from "react";
 import type uPlot from "uplot";
 import type { TemperatureBand } from "../../../../shared/science/transport/temperature";
+import { themeColour as colour, useUplot } from "../../../components/charts/use-uplot";
 import { Notice } from "../../../components/notice";
 import { Loading } from "../../../components/loading";
 import { toChartColumns, type MergedSample } from "../series";
 
 const heightPx = 320;
-
-function colour(name: string, fallback: string): string {
-  const value = getComputedStyle(document.documentElement).getPropertyValue(`--eq-${name}`).trim();
-  return value === "" ? fallback : value;
-}
 
 const pad = (v: number) => String(v).padStart(2, "0");
 function utcLabel(seconds: number): string {
@@ -111,39 +106,16 @@ export function TemperatureChart({
   maxGapS = Infinity,
   description,
 }: TemperatureChartProps) {
-  const box = useRef<HTMLDivElement>(null);
-  const [state, setState] = useState<"loading" | "ready" | "failed">("loading");
   const { minC, maxC } = band;
-
-  useEffect(() => {
-    const element = box.current;
-    if (element === null) return;
-    let plot: uPlot | null = null;
-    let gone = false;
-    const resize = new ResizeObserver(() =>
-      plot?.setSize({ width: element.clientWidth, height: heightPx }),
-    );
-    import("./uplot-loader")
-      .then(({ default: UPlot }) => {
-        if (gone) return;
-        const band = { minC, maxC };
-        plot = new UPlot(
-          options(UPlot, element.clientWidth || 720, band),
-          toChartColumns(samples, band, maxGapS),
-          element,
-        );
-        resize.observe(element);
-        setState("ready");
-      })
-      .catch(() => {
-        if (!gone) setState("failed");
-      });
-    return () => {
-      gone = true;
-      resize.disconnect();
-      plot?.destroy();
-    };
-  }, [samples, minC, maxC, maxGapS]);
+  const makeOptions = useCallback(
+    (UPlot: typeof uPlot, widthPx: number) => options(UPlot, widthPx, { minC, maxC }),
+    [minC, maxC],
+  );
+  const data = useMemo(
+    () => toChartColumns(samples, { minC, maxC }, maxGapS),
+    [samples, minC, maxC, maxGapS],
+  );
+  const { box, state } = useUplot(makeOptions, data, heightPx);
 
   return (
     <figure className="flex flex-col gap-2 self-start rounded-xl border-2 border-line bg-surface p-3">
