@@ -1,26 +1,9 @@
 // The persisted query cache: what a tablet read online must still be there after it sleeps,
 // reloads or closes the tab offline.
 import { afterEach, beforeEach, describe, expect, test, vi } from "vitest";
+import { memoryStorage } from "../../helpers/memory-storage";
 
 const cacheKey = "equipot.query-cache.v1";
-
-/** localStorage with a size limit in characters, like a browser's per-origin quota. */
-function memoryStorage(limitChars = Number.POSITIVE_INFINITY): Storage {
-  const items = new Map<string, string>();
-  return {
-    get length() {
-      return items.size;
-    },
-    clear: () => items.clear(),
-    getItem: (key) => items.get(key) ?? null,
-    key: (index) => [...items.keys()][index] ?? null,
-    removeItem: (key) => void items.delete(key),
-    setItem: (key, value) => {
-      if (String(value).length > limitChars) throw new Error("QuotaExceededError");
-      items.set(key, String(value));
-    },
-  };
-}
 
 type Listener = () => void;
 let storage: Storage;

@@ -1,19 +1,6 @@
 // The remembered session: what lets the app open signed in with no network.
 import { afterEach, beforeEach, describe, expect, test, vi } from "vitest";
-
-function memoryStorage(): Storage {
-  const items = new Map<string, string>();
-  return {
-    get length() {
-      return items.size;
-    },
-    clear: () => items.clear(),
-    getItem: (key) => items.get(key) ?? null,
-    key: (index) => [...items.keys()][index] ?? null,
-    removeItem: (key) => void items.delete(key),
-    setItem: (key, value) => void items.set(key, String(value)),
-  };
-}
+import { memoryStorage } from "../../helpers/memory-storage";
 
 const user = {
   id: "0b6f7a4e-3c1d-4f7a-9a55-2f0c8d1e9b10",
