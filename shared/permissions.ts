@@ -23,6 +23,9 @@ export const actions = [
   "instrument.manage",
   "levelling.adjust",
   "comparison.manage",
+  "entry.review",
+  "audit.read",
+  "campaign.export",
 ] as const;
 export type Action = (typeof actions)[number];
 
@@ -54,6 +57,10 @@ const table: Record<Action, readonly Role[]> = {
   "instrument.manage": ["geodesist", "admin"],
   "levelling.adjust": ["geodesist", "admin"],
   "comparison.manage": ["geodesist", "admin"],
+  // Office review: approve, send back, reopen (DESIGN.md §6); the trail and exports go with it.
+  "entry.review": ["reviewer", "admin"],
+  "audit.read": ["geodesist", "reviewer", "admin"],
+  "campaign.export": ["geodesist", "reviewer", "admin"],
 };
 
 export function can(role: Role | undefined | null, action: Action): boolean {

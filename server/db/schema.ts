@@ -26,6 +26,7 @@ import { crateStates, handoverConditions } from "../../shared/schemas/logistics"
 import { instrumentKinds } from "../../shared/schemas/instruments";
 import { seriesValueKinds, analysisStates } from "../../shared/schemas/comparison";
 import { siteKinds } from "../../shared/schemas/sites";
+import { reviewDecisions, reviewSubjectKinds } from "../../shared/schemas/reviews";
 
 const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
 /** The campaign a row belongs to; the row goes with the campaign. */
@@ -761,3 +762,46 @@ export const comparisonAnalyses = pgTable("comparison_analyses", {
   /** The SeriesAnalysis (shared/schemas/comparison.ts) when done. */
   result: jsonb("result"),
 });
+
+export const reviewSubjectKindEnum = pgEnum("review_subject_kind", reviewSubjectKinds);
+export const reviewDecisionEnum = pgEnum("review_decision", reviewDecisions);
+
+/**
+ * Append-only: one reviewer's decision on one field record. The latest per subject counts; an
+ * approved subject is read-only until a later "reopened" decision. `reviewedSeq` is the subject's
+ * newest change position the reviewer saw, so a later change brings it back to the queue.
+ */
+export const entryReviews = pgTable(
+  "entry_reviews",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    campaignId: campaignRef(),
+    subjectKind: reviewSubjectKindEnum("subject_kind").notNull(),
+    subjectId: uuid("subject_id").notNull(),
+    decision: reviewDecisionEnum("decision").notNull(),
+    comment: text("comment").notNull().default(""),
+    reviewedSeq: bigint("reviewed_seq", { mode: "number" }).notNull(),
+    decidedBy: userRef("decided_by"),
+    decidedAt: timestamp("decided_at", { withTimezone: true }).notNull().defaultNow(),
+    changeSeq: changeSeq(),
+  },
+  (t) => [
+    index("entry_reviews_change_idx").on(t.campaignId, t.changeSeq),
+    index("entry_reviews_subject_idx").on(t.campaignId, t.subjectKind, t.subjectId, t.changeSeq),
+  ],
+);
+
+/** Reviewers who asked for the weekly summary of a campaign, and the last week it went out. */
+export const reviewSummarySubscriptions = pgTable(
+  "review_summary_subscriptions",
+  {
+    campaignId: campaignRef(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    createdAt: createdAt(),
+    /** ISO week ("2027-W07") of the last summary queued. */
+    lastWeek: text("last_week"),
+  },
+  (t) => [primaryKey({ columns: [t.campaignId, t.userId] })],
+);

@@ -62,5 +62,12 @@ export const paths = {
     `${campaign(campaignId)}/heights/runs/${encodeURIComponent(runId)}`,
   editRun: (campaignId: string, runId: string) =>
     `${campaign(campaignId)}/heights/runs/${encodeURIComponent(runId)}/edit`,
+  /** Office review: the queue of synced records. */
+  review: (campaignId: string) => `${campaign(campaignId)}/review`,
+  /** One record under review: its content, decisions and audit trail. */
+  reviewRecord: (campaignId: string, kind: string, id: string) =>
+    `${campaign(campaignId)}/review/${encodeURIComponent(kind)}/${encodeURIComponent(id)}`,
+  exports: (campaignId: string) => `${campaign(campaignId)}/exports`,
+  report: (campaignId: string) => `${campaign(campaignId)}/report`,
   device: "/device",
 } as const;

@@ -37,6 +37,9 @@ import { InstrumentRoute, InstrumentsRoute } from "./routes/instruments-route";
 import { HeightNetworkRoute } from "./routes/height-network-route";
 import { RunEditRoute, RunNewRoute } from "./routes/run-form-route";
 import { RunRoute } from "./routes/run-route";
+import { ReviewRecordRoute, ReviewRoute } from "./routes/review-route";
+import { ExportsRoute } from "./routes/exports-route";
+import { ReportRoute } from "./routes/report-route";
 
 /** The crew starts at their site's board; everyone else at the sites. */
 function CampaignIndex() {
@@ -104,6 +107,10 @@ export const router = createBrowserRouter([
               { path: "heights/runs/new", element: <RunNewRoute /> },
               { path: "heights/runs/:runId", element: <RunRoute /> },
               { path: "heights/runs/:runId/edit", element: <RunEditRoute /> },
+              { path: "review", element: <ReviewRoute /> },
+              { path: "review/:kind/:recordId", element: <ReviewRecordRoute /> },
+              { path: "exports", element: <ExportsRoute /> },
+              { path: "report", element: <ReportRoute /> },
             ],
           },
           { path: "*", element: <NotFoundRoute /> },

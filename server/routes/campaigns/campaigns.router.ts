@@ -14,6 +14,8 @@ import { checklistTemplatesRouter } from "../checklist-templates/checklist-templ
 import { cratesBenchmarksRouter } from "../crates/crates-benchmarks.router";
 import { sitesRouter } from "../sites/sites.router";
 import { geodesyRouter } from "../geodesy/geodesy.router";
+import { archiveImportRouter, exportsRouter } from "../exports/exports.router";
+import { reviewsRouter } from "../reviews/reviews.router";
 
 export interface CampaignsRouterDeps {
   db: Db;
@@ -39,6 +41,9 @@ export function campaignsRouter({
     res.json({ campaigns: await listCampaignsOfUser(db, requireAuth(req).userId) });
   });
 
+  // A campaign archive becomes a new campaign: before the membership check of /:campaignId.
+  router.use("/import", archiveImportRouter({ db, storage }));
+
   router.use("/:campaignId", campaignMember(db));
 
   router.get("/:campaignId/members", requireAction("member.read"), async (req, res) => {
@@ -58,5 +63,8 @@ export function campaignsRouter({
   router.use("/:campaignId/checklist-templates", checklistTemplatesRouter(db));
   // Geodesy: benchmarks, instruments, the levelling network and comparison runs.
   router.use("/:campaignId", geodesyRouter({ db, science, log }));
+  // Office review (queue, decisions, audit trail), exports and the campaign archive.
+  router.use("/:campaignId", reviewsRouter({ db, linkBase, onMailQueued }));
+  router.use("/:campaignId/exports", exportsRouter({ db, storage }));
   return router;
 }

@@ -77,6 +77,21 @@ function CampaignNav({ campaign }: { campaign: CampaignContext }) {
         Heights
       </NavLink>
       <ConflictsTab campaignId={campaign.campaignId} />
+      {can(campaign.role, "entry.review") && (
+        <NavLink to={paths.review(campaign.campaignId)} className={tabClass}>
+          Review
+        </NavLink>
+      )}
+      {can(campaign.role, "campaign.export") && (
+        <>
+          <NavLink to={paths.report(campaign.campaignId)} className={tabClass}>
+            Report
+          </NavLink>
+          <NavLink to={paths.exports(campaign.campaignId)} className={tabClass}>
+            Exports
+          </NavLink>
+        </>
+      )}
       {can(campaign.role, "member.read") && (
         <NavLink to={paths.members(campaign.campaignId)} className={tabClass}>
           Members

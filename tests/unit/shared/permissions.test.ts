@@ -35,8 +35,10 @@ const expected: Record<string, string[]> = {
     "instrument.manage",
     "levelling.adjust",
     "comparison.manage",
+    "audit.read",
+    "campaign.export",
   ],
-  reviewer: ["campaign.read"],
+  reviewer: ["campaign.read", "entry.review", "audit.read", "campaign.export"],
   admin: [
     "campaign.read",
     "site.write",
@@ -58,6 +60,9 @@ const expected: Record<string, string[]> = {
     "instrument.manage",
     "levelling.adjust",
     "comparison.manage",
+    "entry.review",
+    "audit.read",
+    "campaign.export",
   ],
 };
 

@@ -1,0 +1,4 @@
+// Placeholder until the exports page lands.
+export function ExportsRoute() {
+  return <p>…</p>;
+}

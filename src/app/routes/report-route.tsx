@@ -1,0 +1,4 @@
+// Placeholder until the report page lands.
+export function ReportRoute() {
+  return <p>…</p>;
+}
