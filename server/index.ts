@@ -6,6 +6,7 @@ import { parseConfig, publicUrl, type Config } from "./config";
 import { connect } from "./db/client";
 import { createLogger } from "./logger";
 import { createMailWorker, type MailWorker } from "./mail/mail-worker";
+import { queueWeeklySummaries } from "./services/review-summary.service";
 import { createStorage } from "./storage/create-storage";
 import { createSciencePool } from "./workers/science-pool";
 
@@ -42,10 +43,18 @@ export async function startServer(config: Config): Promise<RunningServer> {
   const address = server.address();
   const port = typeof address === "object" && address ? address.port : config.PORT;
   url = config.PUBLIC_URL ?? `http://${config.HOST}:${port}`;
+  // Hourly: a summary is queued once per ISO week, so any instance may run the check.
+  const summaries = setInterval(() => {
+    queueWeeklySummaries(database.db, new Date(), url)
+      .then((queued) => queued > 0 && mail?.kick())
+      .catch((error: unknown) => log.error({ err: error }, "weekly review summaries failed"));
+  }, 3_600_000);
+  summaries.unref();
   return {
     url,
     mail,
     close: async () => {
+      clearInterval(summaries);
       const closed = new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
       await closed;

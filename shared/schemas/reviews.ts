@@ -56,8 +56,8 @@ export const reviewQueueQuery = z.strictObject({
   person: z.uuid("person must be a user id").optional(),
   from: z.iso.date("from must be a date (YYYY-MM-DD)").optional(),
   to: z.iso.date("to must be a date (YYYY-MM-DD)").optional(),
-  /** "waiting": new or changed since the last decision (the default); "all": every record. */
-  show: z.enum(["waiting", "all"]).default("waiting"),
+  /** "waiting": new or changed since the last decision (the default); or by the last decision. */
+  show: z.enum(["waiting", "approved", "sentBack", "all"]).default("waiting"),
 });
 export type ReviewQueueQuery = z.input<typeof reviewQueueQuery>;
 
@@ -81,6 +81,48 @@ export type ReviewQueueItem = z.infer<typeof reviewQueueItem>;
 
 export const reviewQueueResponse = z.object({
   items: z.array(reviewQueueItem),
+  /** More records matched than were sent: narrow the filters. */
+  truncated: z.boolean(),
   people: z.array(z.object({ id: z.uuid(), name: z.string() })),
 });
 export type ReviewQueueResponse = z.infer<typeof reviewQueueResponse>;
+
+/** One change in the audit trail: who, when, from which device, before and after. */
+export const auditEventView = z.object({
+  id: z.number().int(),
+  at: z.string(),
+  action: z.string(),
+  entity: z.string(),
+  entityId: z.string(),
+  userId: z.uuid().nullable(),
+  userName: z.string().nullable(),
+  clientId: z.uuid().nullable(),
+  deviceLabel: z.string().nullable(),
+  before: z.unknown(),
+  after: z.unknown(),
+});
+export type AuditEventView = z.infer<typeof auditEventView>;
+
+export const reviewRecordResponse = z.object({
+  item: reviewQueueItem,
+  decisions: z.array(reviewView),
+  trail: z.array(auditEventView),
+});
+export type ReviewRecordResponse = z.infer<typeof reviewRecordResponse>;
+
+export const summarySubscriptionInput = z.strictObject({ weekly: z.boolean() });
+
+/** Words for people; the decision names stay in the code and on the wire. */
+export const reviewSubjectLabels: Record<ReviewSubjectKind, string> = {
+  checklistRun: "Checklist",
+  fieldEntry: "Field entry",
+  levellingSection: "Levelling section",
+  leg: "Leg",
+  handover: "Handover",
+};
+
+export const reviewDecisionLabels: Record<ReviewDecision, string> = {
+  approved: "Approved",
+  sentBack: "Sent back",
+  reopened: "Reopened",
+};

@@ -29,9 +29,11 @@ import {
   legStepInput,
   legView,
 } from "../schemas/logistics";
+import { reviewView } from "../schemas/reviews";
 import { siteCreateInput, sitePatchSchema, siteView } from "../schemas/sites";
 
-export const protocolVersion = 1;
+/** 2: review decisions travel in the pull (entity "review"). */
+export const protocolVersion = 2;
 export const maxPushBatch = 500;
 export const maxPullPage = 1000;
 export const defaultPullPage = 500;
@@ -154,6 +156,7 @@ export const syncEntities = [
   "leg",
   "handover",
   "alert",
+  "review",
 ] as const;
 export const syncEntitySchema = z.enum(syncEntities);
 export type SyncEntity = z.infer<typeof syncEntitySchema>;
@@ -232,6 +235,7 @@ export const changeRecord = z.discriminatedUnion("entity", [
     data: handoverView,
   }),
   z.object({ entity: z.literal("alert"), seq: z.number().int(), id: z.uuid(), data: alertView }),
+  z.object({ entity: z.literal("review"), seq: z.number().int(), id: z.uuid(), data: reviewView }),
 ]);
 export type ChangeRecord = z.infer<typeof changeRecord>;
 

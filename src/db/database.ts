@@ -12,6 +12,7 @@ import type { CrateView } from "../../shared/schemas/crates";
 import type { FieldEntryView } from "../../shared/schemas/field-entries";
 import type { LevellingSectionView, LevellingSetupView } from "../../shared/schemas/levelling";
 import type { AlertView, HandoverView, LegView } from "../../shared/schemas/logistics";
+import type { ReviewView } from "../../shared/schemas/reviews";
 import type { SiteView } from "../../shared/schemas/sites";
 import type { ConflictView, MutationName, MutationResult } from "../../shared/sync/protocol";
 
@@ -110,7 +111,13 @@ export type EquipotDb = Dexie & {
   handovers: EntityTable<LocalHandover, "id">;
   serverAlerts: EntityTable<AlertView, "id">;
   alerts: EntityTable<LocalAlert, "id">;
+  reviews: EntityTable<LocalReview, "id">;
 };
+
+/** An office decision on a record, as pulled (read-only on the tablet). */
+export interface LocalReview extends ReviewView {
+  campaignId: string;
+}
 
 export interface LocalLeg extends LegView {
   pending: boolean;
@@ -208,6 +215,11 @@ export const schemaHistory: readonly { version: number; stores: Record<string, s
         serverAlerts: "id, campaignId, crateId",
         alerts: "id, campaignId, crateId",
       },
+    },
+    {
+      version: 7,
+      // Office review decisions, read by record (the newest per record counts).
+      stores: { reviews: "id, campaignId, subjectId, [campaignId+decision]" },
     },
   ];
 

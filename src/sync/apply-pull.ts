@@ -44,6 +44,7 @@ export async function applyPulledPage(
     leg: [],
     handover: [],
     alert: [],
+    review: [],
   };
   // The union's data follows its entity; TypeScript cannot pair them through the index.
   for (const change of page.changes) (pulled[change.entity] as unknown[]).push(change.data);
@@ -62,7 +63,15 @@ export async function applyPulledPage(
   for (const [entity, kind] of Object.entries(viewOf) as [Entity, ViewKind][])
     for (const record of pulled[entity]) touched[kind].add(record.id);
   const conflicts: LocalConflict[] = pulled.conflict.map((c) => ({ ...c, campaignId }));
-  const tables = [db.meta, db.conflicts, db.recovery, db.checklistTemplates, ...viewTables(db)];
+  const reviews = pulled.review.map((r) => ({ ...r, campaignId }));
+  const tables = [
+    db.meta,
+    db.conflicts,
+    db.recovery,
+    db.checklistTemplates,
+    db.reviews,
+    ...viewTables(db),
+  ];
   await db.transaction("rw", tables, async () => {
     await db.serverSites.bulkPut(pulled.site);
     await db.serverAttachments.bulkPut(pulled.attachment);
@@ -77,6 +86,7 @@ export async function applyPulledPage(
     await db.serverLegs.bulkPut(pulled.leg);
     await db.serverHandovers.bulkPut(pulled.handover);
     await db.serverAlerts.bulkPut(pulled.alert);
+    await db.reviews.bulkPut(reviews);
     // Confirm only on the last page: then every change of a confirmed mutation is already here,
     // so its record never drops out of the working copy between pages.
     if (page.lastMutationId !== null && !page.hasMore) {

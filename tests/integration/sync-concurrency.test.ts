@@ -8,6 +8,7 @@ import request from "supertest";
 import { newSite } from "../helpers/sync";
 import { nextChangeSeq } from "../../server/db/change-seq";
 import { sites } from "../../server/db/schema";
+import { protocolVersion } from "../../shared/sync/protocol";
 
 let ctx: TestContext;
 let campaignId: string;
@@ -55,7 +56,7 @@ describe("pull while others write", () => {
     const pullFrom = async (from: number) => {
       const r = await request(ctx.app)
         .get("/api/sync/pull")
-        .query({ protocolVersion: 1, campaign: campaignId, cursor: from, limit: 5 })
+        .query({ protocolVersion, campaign: campaignId, cursor: from, limit: 5 })
         .set("Authorization", `Bearer ${token}`);
       return r.body as { changes: { id: string }[]; cursor: number };
     };

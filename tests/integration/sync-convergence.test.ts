@@ -10,7 +10,7 @@ import { openDatabase, type EquipotDb } from "../../src/db/database";
 import { createSiteLocally, deleteSiteLocally, updateSiteLocally } from "../../src/db/site-store";
 import { createSyncEngine, type SyncEngine } from "../../src/sync/engine";
 import type { SyncTransport } from "../../src/sync/transport";
-import type { PushRequest } from "../../shared/sync/protocol";
+import { protocolVersion, type PushRequest } from "../../shared/sync/protocol";
 import { createTestContext, signInAs, type TestContext } from "../helpers/app";
 import { auditEvents, campaigns, conflicts, memberships, users } from "../../server/db/schema";
 
@@ -83,7 +83,7 @@ function faultyTransport(token: string, stale: PushRequest[]) {
     async pull(params) {
       const res = await request(ctx.app)
         .get("/api/sync/pull")
-        .query({ protocolVersion: 1, ...params })
+        .query({ protocolVersion, ...params })
         .set("Authorization", `Bearer ${token}`);
       if (res.status !== 200) throw new Error(`pull ${res.status}`);
       return res.body;

@@ -48,3 +48,40 @@ export async function recordAudits(q: Queryable, entries: AuditEntry[]): Promise
     from jsonb_populate_recordset(null::audit_events, ${json}::jsonb) with ordinality
     order by ordinality`);
 }
+
+/**
+ * The trail of one record with its parts: checklist results of a run, setups of a section, files
+ * linked to it, and the review decisions on it. Oldest first.
+ */
+export async function trailOf(q: Queryable, campaignId: string, entity: string, entityId: string) {
+  const result = await q.execute<Record<string, unknown>>(sql`
+    select a.id, a.at, a.action, a.entity, a.entity_id, a.user_id, u.name as user_name,
+      a.client_id, c.label as device_label, a.before, a.after
+    from audit_events a
+    left join users u on u.id = a.user_id
+    left join sync_clients c on c.id = a.client_id
+    where a.campaign_id = ${campaignId} and (
+      (a.entity = ${entity} and a.entity_id = ${entityId})
+      or (a.entity = 'checklistResult' and a.entity_id in
+        (select id::text from checklist_results where run_id::text = ${entityId}))
+      or (a.entity = 'levellingSetup' and a.entity_id in
+        (select id::text from levelling_setups where section_id::text = ${entityId}))
+      or (a.entity = 'attachment' and a.entity_id in
+        (select id::text from attachment_links where subject_id::text = ${entityId}
+          and campaign_id = ${campaignId})))
+    order by a.id
+    limit 2000`);
+  return result.rows.map((r) => ({
+    id: Number(r.id),
+    at: new Date(String(r.at)).toISOString(),
+    action: String(r.action),
+    entity: String(r.entity),
+    entityId: String(r.entity_id),
+    userId: (r.user_id as string | null) ?? null,
+    userName: (r.user_name as string | null) ?? null,
+    clientId: (r.client_id as string | null) ?? null,
+    deviceLabel: (r.device_label as string | null) ?? null,
+    before: r.before ?? null,
+    after: r.after ?? null,
+  }));
+}

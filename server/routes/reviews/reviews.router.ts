@@ -1,5 +1,16 @@
 import { Router } from "express";
+import { z } from "zod";
+import {
+  reviewDecisionInput,
+  reviewQueueQuery,
+  reviewSubjectKind,
+  summarySubscriptionInput,
+} from "../../../shared/schemas/reviews";
 import type { Db } from "../../db/client";
+import { hasSummarySubscription, setSummarySubscription } from "../../db/repositories/reviews";
+import { requireAction, scope } from "../../middleware/authorize";
+import { parseInput } from "../../middleware/validate";
+import { decide, reviewQueue, reviewRecord } from "../../services/reviews.service";
 
 export interface ReviewsDeps {
   db: Db;
@@ -7,7 +18,38 @@ export interface ReviewsDeps {
   onMailQueued: () => void;
 }
 
+const recordParams = z.object({
+  kind: reviewSubjectKind,
+  recordId: z.uuid("The record id must be a UUID"),
+});
+
 /** Mounted under /api/campaigns/:campaignId after the membership check. */
-export function reviewsRouter(_deps: ReviewsDeps): Router {
-  return Router({ mergeParams: true });
+export function reviewsRouter({ db, linkBase, onMailQueued }: ReviewsDeps): Router {
+  const router = Router({ mergeParams: true });
+  router.get("/reviews/queue", requireAction("entry.review"), async (req, res) => {
+    const query = parseInput(reviewQueueQuery, req.query);
+    res.json(await reviewQueue(db, scope(req).campaignId, query));
+  });
+  router.get("/reviews/records/:kind/:recordId", requireAction("audit.read"), async (req, res) => {
+    const { kind, recordId } = parseInput(recordParams, req.params);
+    res.json(await reviewRecord(db, scope(req).campaignId, kind, recordId));
+  });
+  router.post("/reviews", requireAction("entry.review"), async (req, res) => {
+    const input = parseInput(reviewDecisionInput, req.body);
+    const review = await decide(db, scope(req), input, { linkBase: linkBase() });
+    if (review.decision === "sentBack") onMailQueued();
+    res.status(201).json({ review });
+  });
+  // The weekly summary is for reviewers, by their own choice.
+  router.get("/reviews/summary", requireAction("entry.review"), async (req, res) => {
+    const { campaignId, userId } = scope(req);
+    res.json({ weekly: await hasSummarySubscription(db, campaignId, userId) });
+  });
+  router.put("/reviews/summary", requireAction("entry.review"), async (req, res) => {
+    const { weekly } = parseInput(summarySubscriptionInput, req.body);
+    const { campaignId, userId } = scope(req);
+    await setSummarySubscription(db, campaignId, userId, weekly);
+    res.json({ weekly });
+  });
+  return router;
 }

@@ -32,6 +32,7 @@ import {
   applyLevellingOpen,
   applyLevellingSetup,
 } from "./levelling-mutations";
+import { refuseIfApproved } from "./review-guard";
 import { applySiteCreates, applySiteDelete, applySiteUpdate } from "./site-mutations";
 
 type PushContext = Omit<ApplyContext, "role"> & { role: Role | undefined };
@@ -103,7 +104,7 @@ const appliers: { [N in Exclude<MutationName, "site.create">]: Applier<N> } = {
   "alert.acknowledge": applyAlertAcknowledge,
 };
 
-function applyOne<N extends Exclude<MutationName, "site.create">>(
+async function applyOne<N extends Exclude<MutationName, "site.create">>(
   ctx: ApplyContext,
   name: N,
   rawArgs: unknown,
@@ -111,6 +112,7 @@ function applyOne<N extends Exclude<MutationName, "site.create">>(
   const apply: Applier<N> = appliers[name];
   // The schema is the one of kind N, so its output is Args<N>; TypeScript cannot follow the index.
   const args = parseArgs(name, mutationSchemas[name], rawArgs) as Args<N>;
+  await refuseIfApproved(ctx.tx, ctx.campaignId, name, args);
   return apply(ctx, args);
 }
 

@@ -11,6 +11,7 @@ import { entriesAfter } from "../../db/repositories/field-entries";
 import { handoversAfter } from "../../db/repositories/handovers";
 import { sectionsAfter, setupsAfter } from "../../db/repositories/levelling";
 import { legsAfter } from "../../db/repositories/legs";
+import { reviewsAfter } from "../../db/repositories/reviews";
 import {
   conflictsAfter,
   findSyncClient,
@@ -26,6 +27,7 @@ import { presentCrate } from "../../presenters/crate-benchmark";
 import { presentFieldEntry } from "../../presenters/field-entry";
 import { presentSection, presentSetup } from "../../presenters/levelling";
 import { presentHandover, presentLeg } from "../../presenters/logistics";
+import { presentReview } from "../../presenters/review";
 import { presentSite } from "../../presenters/site";
 import { assertProtocol } from "./push";
 
@@ -130,6 +132,14 @@ const sources: Source[] = [
       seq: r.changeSeq,
       id: r.id,
       data: presentAlert(r),
+    })),
+  // Review decisions, so the author sees a send-back and an approved record turns read-only.
+  async (tx, ...range) =>
+    (await reviewsAfter(tx, ...range)).map((r) => ({
+      entity: "review",
+      seq: r.changeSeq,
+      id: r.id,
+      data: presentReview(r),
     })),
 ];
 
