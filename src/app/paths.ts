@@ -1,4 +1,6 @@
 // Every in-app address, built in one place.
+import type { ReviewSubjectKind } from "../../shared/schemas/reviews";
+
 const campaign = (campaignId: string) => `/campaigns/${encodeURIComponent(campaignId)}`;
 
 export const paths = {
@@ -67,6 +69,17 @@ export const paths = {
   /** One record under review: its content, decisions and audit trail. */
   reviewRecord: (campaignId: string, kind: string, id: string) =>
     `${campaign(campaignId)}/review/${encodeURIComponent(kind)}/${encodeURIComponent(id)}`,
+  /** Where a reviewed record opens in the field pages (legs: the crates, where each leg shows). */
+  reviewSubject: (campaignId: string, kind: ReviewSubjectKind, id: string) => {
+    const at: Record<ReviewSubjectKind, string> = {
+      checklistRun: `checklists/${encodeURIComponent(id)}`,
+      fieldEntry: `entries/${encodeURIComponent(id)}`,
+      levellingSection: `levelling/${encodeURIComponent(id)}`,
+      handover: `crates/handovers/${encodeURIComponent(id)}`,
+      leg: "crates",
+    };
+    return `${campaign(campaignId)}/${at[kind]}`;
+  },
   exports: (campaignId: string) => `${campaign(campaignId)}/exports`,
   report: (campaignId: string) => `${campaign(campaignId)}/report`,
   device: "/device",

@@ -1,6 +1,8 @@
 import { useParams } from "react-router-dom";
 import { can } from "../../../shared/permissions";
 import { ChecklistRun } from "../../features/checklists/components/checklist-run";
+import { ReviewMark, isReadOnly } from "../../features/review/components/review-mark";
+import { useRecordReview } from "../../features/review/hooks/use-local-reviews";
 import { DewPointGate } from "../../features/field-entries/components/dew-point-gate";
 import { useCrates, useSiteEntries } from "../../features/field-entries/hooks/use-field-entries";
 import { useChecklistRun } from "../../features/checklists/hooks/use-checklists";
@@ -17,6 +19,7 @@ export function ChecklistRunRoute() {
   const { campaignId, role } = useCampaign();
   const { runId = "" } = useParams();
   const { run, results } = useChecklistRun(campaignId, runId);
+  const review = useRecordReview(campaignId, runId);
   const site = useLocalSite(campaignId, run?.siteId ?? "");
   const entries = useSiteEntries(campaignId, run?.siteId ?? "");
   const crates = useCrates(campaignId);
@@ -41,11 +44,12 @@ export function ChecklistRunRoute() {
           Back to {siteName}
         </LinkButton>
       </div>
+      <ReviewMark review={review} />
       <ChecklistRun
         campaignId={campaignId}
         run={run}
         results={results}
-        canRecord={can(role, "checklist.record")}
+        canRecord={can(role, "checklist.record") && !isReadOnly(review)}
         beforeSignOff={
           run.purpose === "unpacking" && (
             <DewPointGate

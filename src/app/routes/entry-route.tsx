@@ -2,6 +2,8 @@ import { useLocation, useParams } from "react-router-dom";
 import { can } from "../../../shared/permissions";
 import { fieldEntryKindLabels } from "../../../shared/schemas/field-entries";
 import { AttachmentPanel } from "../../features/attachments/components/attachment-panel";
+import { ReviewMark, isReadOnly } from "../../features/review/components/review-mark";
+import { useRecordReview } from "../../features/review/hooks/use-local-reviews";
 import { EntryDetails } from "../../features/field-entries/components/entry-details";
 import { useCrates, useFieldEntry } from "../../features/field-entries/hooks/use-field-entries";
 import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
@@ -31,6 +33,7 @@ export function EntryRoute() {
   const { campaignId, role } = useCampaign();
   const { entryId = "" } = useParams();
   const entry = useFieldEntry(campaignId, entryId);
+  const review = useRecordReview(campaignId, entryId);
   const crates = useCrates(campaignId);
   const site = useLocalSite(campaignId, entry?.siteId ?? "");
   if (entry === undefined) return <Loading label="Reading the entry on this device…" />;
@@ -56,11 +59,12 @@ export function EntryRoute() {
         )}
       </div>
       <SavedNotice />
+      <ReviewMark review={review} />
       <EntryDetails entry={entry} crate={crate} />
       <AttachmentPanel
         campaignId={campaignId}
         subject={{ kind: "fieldEntry", id: entry.id, label: title }}
-        canAdd={can(role, "attachment.write")}
+        canAdd={can(role, "attachment.write") && !isReadOnly(review)}
       />
     </>
   );

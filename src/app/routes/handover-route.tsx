@@ -1,6 +1,8 @@
 import { useNavigate, useParams, useSearchParams } from "react-router-dom";
 import { can } from "../../../shared/permissions";
 import { handoverConditionLabels } from "../../../shared/schemas/logistics";
+import { ReviewMark, isReadOnly } from "../../features/review/components/review-mark";
+import { useRecordReview } from "../../features/review/hooks/use-local-reviews";
 import { AttachmentPanel } from "../../features/attachments/components/attachment-panel";
 import { LabelScanner } from "../../features/labels/label-scanner";
 import { HandoverForm } from "../../features/logistics/components/handover-form";
@@ -52,6 +54,7 @@ export function HandoverRecordRoute() {
   const { campaignId, role } = useCampaign();
   const { handoverId = "" } = useParams();
   const record = useHandoverRecord(campaignId, handoverId);
+  const review = useRecordReview(campaignId, handoverId);
   if (record === undefined) return <Loading label="Reading the handover on this device…" />;
   if (record === null)
     return (
@@ -72,6 +75,7 @@ export function HandoverRecordRoute() {
           </span>
         }
       />
+      <ReviewMark review={review} />
       <div className="mb-4 flex flex-col gap-4">
         {handover.pending && <Notice title="Saved on this device">Sent with the next sync.</Notice>}
         <p>
@@ -91,7 +95,7 @@ export function HandoverRecordRoute() {
       <AttachmentPanel
         campaignId={campaignId}
         subject={{ kind: "handover", id: handover.id, label: `${label} handover` }}
-        canAdd={can(role, "attachment.write")}
+        canAdd={can(role, "attachment.write") && !isReadOnly(review)}
       />
     </>
   );

@@ -5,6 +5,8 @@ import { AttachmentPanel } from "../../features/attachments/components/attachmen
 import { FieldBook } from "../../features/levelling/components/field-book";
 import { LevellingCaution } from "../../features/levelling/components/levelling-caution";
 import { useLevellingSection } from "../../features/levelling/hooks/use-levelling";
+import { ReviewMark, isReadOnly } from "../../features/review/components/review-mark";
+import { useRecordReview } from "../../features/review/hooks/use-local-reviews";
 import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
 import { LinkButton } from "../../components/button";
 import { Loading } from "../../components/loading";
@@ -19,6 +21,7 @@ export function LevellingSectionRoute() {
   const { sectionId = "" } = useParams();
   const { section, setups } = useLevellingSection(campaignId, sectionId);
   const site = useLocalSite(campaignId, section?.siteId ?? "");
+  const review = useRecordReview(campaignId, sectionId);
   if (section === undefined || setups === undefined)
     return <Loading label="Reading the field book on this device…" />;
   if (section === null) {
@@ -29,7 +32,8 @@ export function LevellingSectionRoute() {
     );
   }
   const levellingClass = findLevellingClass(section.classId);
-  const canRecord = can(role, "levelling.record");
+  const readOnly = isReadOnly(review);
+  const canRecord = can(role, "levelling.record") && !readOnly;
   return (
     <>
       <PageHeader
@@ -51,7 +55,8 @@ export function LevellingSectionRoute() {
       </div>
       <div className="flex flex-col gap-6">
         {section.closedAt === null && canRecord && <LevellingCaution />}
-        {!canRecord && (
+        <ReviewMark review={review} />
+        {!canRecord && !readOnly && (
           <p className="text-muted">Your role can read this field book but not write in it.</p>
         )}
         <FieldBook
@@ -68,7 +73,7 @@ export function LevellingSectionRoute() {
           id: section.id,
           label: `${section.fromMark} → ${section.toMark}`,
         }}
-        canAdd={can(role, "attachment.write")}
+        canAdd={can(role, "attachment.write") && !readOnly}
       />
     </>
   );

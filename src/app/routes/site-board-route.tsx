@@ -13,6 +13,8 @@ import { useLogistics } from "../../features/logistics/hooks/use-logistics";
 import { cratePlace } from "../../db/logistics-queries";
 import { useLocalSite, useLocalSites } from "../../features/sites/hooks/use-local-sites";
 import { SyncCard } from "../../features/sync/components/sync-card";
+import { SentBackList } from "../../features/review/components/sent-back-list";
+import { useSentBack } from "../../features/review/hooks/use-local-reviews";
 import { Button, LinkButton } from "../../components/button";
 import { Loading } from "../../components/loading";
 import { Notice } from "../../components/notice";
@@ -84,6 +86,7 @@ export function SiteBoardRoute() {
   const entries = useSiteEntries(campaignId, siteId);
   const crates = useCrates(campaignId);
   const logistics = useLogistics(campaignId);
+  const sentBack = useSentBack(campaignId);
   const [current, setCurrent] = useState(() => readCurrentSite(campaignId));
 
   if (site === undefined || entries === undefined || crates === undefined)
@@ -141,6 +144,10 @@ export function SiteBoardRoute() {
           <AlertsCard count={alerts.length} />
           <TimeLeftCard />
         </div>
+        <SentBackList
+          reviews={sentBack ?? []}
+          recordHref={(r) => paths.reviewSubject(campaignId, r.subjectKind, r.subjectId)}
+        />
         {canRecord && (
           <Section title="Record">
             <div className="grid grid-cols-2 gap-3 lg:grid-cols-4">
