@@ -6,6 +6,8 @@ import { fieldEntryKindLabels, fieldEntryKinds } from "../../shared/schemas/fiel
 import {
   reviewDecisionLabels,
   reviewSubjectLabels,
+  type bulkApproveInput,
+  type BulkApproveResponse,
   type reviewDecisionInput,
   type reviewQueueQuery,
   type ReviewQueueResponse,
@@ -14,7 +16,7 @@ import {
   type ReviewView,
 } from "../../shared/schemas/reviews";
 import { nextChangeSeq } from "../db/change-seq";
-import type { Db, Queryable } from "../db/client";
+import type { Db, Queryable, Tx } from "../db/client";
 import { recordAudit, trailOf } from "../db/repositories/audit";
 import { findCampaign } from "../db/repositories/campaigns";
 import { enqueueEmailOnce } from "../db/repositories/outbox";
@@ -26,7 +28,7 @@ import {
   reviewsOf,
   type SubjectRow,
 } from "../db/repositories/reviews";
-import { conflict, notFound } from "../http-errors";
+import { conflict, HttpError, notFound } from "../http-errors";
 import { presentQueueItem, presentReview } from "../presenters/review";
 
 type Scope = { campaignId: string; userId: string };
@@ -117,44 +119,75 @@ export interface DecideDeps {
   linkBase: string;
 }
 
-export async function decide(
-  db: Db,
+/** One decision inside the caller's transaction, after the change position was taken. */
+async function decideIn(
+  tx: Tx,
   scope: Scope,
   input: DecisionInput,
+  changeSeq: number,
   deps: DecideDeps,
 ): Promise<ReviewView> {
+  const subject = await findSubject(tx, scope.campaignId, input.subjectKind, input.subjectId);
+  const current = await latestReview(tx, scope.campaignId, input.subjectKind, input.subjectId);
+  if (subject.latestSeq !== input.reviewedSeq)
+    throw conflict(
+      "The record changed since you opened it (a new sync arrived): look at it again, then decide",
+    );
+  const problem = refusal(input.decision, current?.decision);
+  if (problem) throw conflict(problem);
+  const row = await insertReview(tx, {
+    campaignId: scope.campaignId,
+    subjectKind: input.subjectKind,
+    subjectId: input.subjectId,
+    decision: input.decision,
+    comment: input.comment,
+    reviewedSeq: subject.latestSeq,
+    decidedBy: scope.userId,
+    changeSeq,
+  });
+  const view = presentReview(row);
+  await recordAudit(tx, {
+    campaignId: scope.campaignId,
+    userId: scope.userId,
+    action: `review.${input.decision}`,
+    entity: input.subjectKind,
+    entityId: input.subjectId,
+    before: current ? presentReview(current) : null,
+    after: view,
+  });
+  if (input.decision === "sentBack") await queueSendBackNotice(tx, scope, subject, view, deps);
+  return view;
+}
+
+export const decide = (db: Db, scope: Scope, input: DecisionInput, deps: DecideDeps) =>
+  db.transaction(async (tx) =>
+    decideIn(tx, scope, input, await nextChangeSeq(tx, scope.campaignId), deps),
+  );
+
+/**
+ * Approves every listed record still as the reviewer saw it, in one transaction; the others
+ * (changed meanwhile, or already decided) are counted and left in the queue for a look.
+ */
+export async function approveMany(
+  db: Db,
+  scope: Scope,
+  input: z.output<typeof bulkApproveInput>,
+  deps: DecideDeps,
+): Promise<BulkApproveResponse> {
   return db.transaction(async (tx) => {
-    const changeSeq = await nextChangeSeq(tx, scope.campaignId);
-    const subject = await findSubject(tx, scope.campaignId, input.subjectKind, input.subjectId);
-    const current = await latestReview(tx, scope.campaignId, input.subjectKind, input.subjectId);
-    if (subject.latestSeq !== input.reviewedSeq)
-      throw conflict(
-        "The record changed since you opened it (a new sync arrived): look at it again, then decide",
-      );
-    const problem = refusal(input.decision, current?.decision);
-    if (problem) throw conflict(problem);
-    const row = await insertReview(tx, {
-      campaignId: scope.campaignId,
-      subjectKind: input.subjectKind,
-      subjectId: input.subjectId,
-      decision: input.decision,
-      comment: input.comment,
-      reviewedSeq: subject.latestSeq,
-      decidedBy: scope.userId,
-      changeSeq,
-    });
-    const view = presentReview(row);
-    await recordAudit(tx, {
-      campaignId: scope.campaignId,
-      userId: scope.userId,
-      action: `review.${input.decision}`,
-      entity: input.subjectKind,
-      entityId: input.subjectId,
-      before: current ? presentReview(current) : null,
-      after: view,
-    });
-    if (input.decision === "sentBack") await queueSendBackNotice(tx, scope, subject, view, deps);
-    return view;
+    let approved = 0;
+    for (const item of input.items) {
+      const changeSeq = await nextChangeSeq(tx, scope.campaignId);
+      try {
+        await tx.transaction((inner) =>
+          decideIn(inner, scope, { ...item, decision: "approved", comment: "" }, changeSeq, deps),
+        );
+        approved += 1;
+      } catch (error) {
+        if (!(error instanceof HttpError) || error.status !== 409) throw error;
+      }
+    }
+    return { approved, skipped: input.items.length - approved };
   });
 }
 

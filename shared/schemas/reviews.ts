@@ -126,3 +126,27 @@ export const reviewDecisionLabels: Record<ReviewDecision, string> = {
   sentBack: "Sent back",
   reopened: "Reopened",
 };
+
+export const bulkApproveMax = 500;
+
+/** Approve many records at once (the ones shown in the queue), each at the position seen. */
+export const bulkApproveInput = z.strictObject({
+  items: z
+    .array(
+      z.strictObject({
+        subjectKind: reviewSubjectKind,
+        subjectId: z.uuid("subjectId must be a record id"),
+        reviewedSeq: z.number().int().min(0),
+      }),
+    )
+    .min(1, "items: choose at least one record")
+    .max(bulkApproveMax, `items: at most ${bulkApproveMax} records at once`),
+});
+export type BulkApproveInput = z.input<typeof bulkApproveInput>;
+
+export const bulkApproveResponse = z.object({
+  approved: z.number().int(),
+  /** Records that changed since they were shown, or were decided meanwhile: left for a look. */
+  skipped: z.number().int(),
+});
+export type BulkApproveResponse = z.infer<typeof bulkApproveResponse>;

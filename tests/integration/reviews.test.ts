@@ -256,6 +256,36 @@ describe("an approved record on the tablet", () => {
   });
 });
 
+describe("approving many at once", () => {
+  it("approves what is as shown and leaves a record that changed since for a look", async () => {
+    const shown = (await queue()).items.slice(0, 3);
+    expect(shown.length).toBeGreaterThan(1);
+    const [first, ...rest] = shown;
+    if (!first) throw new Error("nothing to approve");
+    const items = [
+      {
+        subjectKind: first.subjectKind,
+        subjectId: first.subjectId,
+        reviewedSeq: first.latestSeq - 1,
+      },
+      ...rest.map((i) => ({
+        subjectKind: i.subjectKind,
+        subjectId: i.subjectId,
+        reviewedSeq: i.latestSeq,
+      })),
+    ];
+    const res = await api(reviewerToken).post("/reviews/approve-many", { items });
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({ approved: rest.length, skipped: 1 });
+    const waiting = (await queue()).items.map((i) => i.subjectId);
+    expect(waiting).toContain(first.subjectId);
+    for (const i of rest) expect(waiting).not.toContain(i.subjectId);
+    const empty = await api(reviewerToken).post("/reviews/approve-many", { items: [] });
+    expect(empty.status).toBe(400);
+    expect(empty.body.error.message).toMatch(/^items: /);
+  });
+});
+
 describe("the record's audit trail", () => {
   it("shows every change and decision with who, when and from which device", async () => {
     const res = await api(reviewerToken).get(`/reviews/records/checklistRun/${runId}`);

@@ -1,6 +1,7 @@
 import { Router } from "express";
 import { z } from "zod";
 import {
+  bulkApproveInput,
   reviewDecisionInput,
   reviewQueueQuery,
   reviewSubjectKind,
@@ -10,7 +11,7 @@ import type { Db } from "../../db/client";
 import { hasSummarySubscription, setSummarySubscription } from "../../db/repositories/reviews";
 import { requireAction, scope } from "../../middleware/authorize";
 import { parseInput } from "../../middleware/validate";
-import { decide, reviewQueue, reviewRecord } from "../../services/reviews.service";
+import { approveMany, decide, reviewQueue, reviewRecord } from "../../services/reviews.service";
 
 export interface ReviewsDeps {
   db: Db;
@@ -39,6 +40,10 @@ export function reviewsRouter({ db, linkBase, onMailQueued }: ReviewsDeps): Rout
     const review = await decide(db, scope(req), input, { linkBase: linkBase() });
     if (review.decision === "sentBack") onMailQueued();
     res.status(201).json({ review });
+  });
+  router.post("/reviews/approve-many", requireAction("entry.review"), async (req, res) => {
+    const input = parseInput(bulkApproveInput, req.body);
+    res.json(await approveMany(db, scope(req), input, { linkBase: linkBase() }));
   });
   // The weekly summary is for reviewers, by their own choice.
   router.get("/reviews/summary", requireAction("entry.review"), async (req, res) => {

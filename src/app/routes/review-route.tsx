@@ -14,6 +14,7 @@ import {
   useSetSummarySubscription,
   useSummarySubscription,
 } from "../../features/review/api/summary-subscription";
+import { ApproveShown } from "../../features/review/components/approve-shown";
 import { AuditTrail } from "../../features/review/components/audit-trail";
 import { DecisionControls } from "../../features/review/components/decision-controls";
 import { DecisionLine } from "../../features/review/components/decision-line";
@@ -100,6 +101,7 @@ export function ReviewRoute() {
                 Narrow the filters (a site, a person or dates) to see the rest.
               </Notice>
             )}
+            <ApproveShown campaignId={campaignId} items={queue.data.items} />
             {queue.data.items.length === 0 ? (
               <p className="text-muted">Nothing here with these filters.</p>
             ) : (
