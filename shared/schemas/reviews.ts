@@ -150,3 +150,17 @@ export const bulkApproveResponse = z.object({
   skipped: z.number().int(),
 });
 export type BulkApproveResponse = z.infer<typeof bulkApproveResponse>;
+
+/** Records whose change history can be read on its own (the reviewed kinds and the edited ones). */
+export const trailEntities = [
+  ...reviewSubjectKinds,
+  "site",
+  "crate",
+  "benchmark",
+  "instrument",
+  "checklistTemplate",
+] as const;
+export const trailEntity = z.enum(trailEntities);
+export type TrailEntity = z.infer<typeof trailEntity>;
+
+export const trailResponse = z.object({ trail: z.array(auditEventView) });

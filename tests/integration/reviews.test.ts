@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { isoWeek, queueWeeklySummaries } from "../../server/services/review-summary.service";
 import type { ChecklistTemplateView } from "../../shared/schemas/checklists";
 import type {
+  AuditEventView,
   ReviewQueueResponse,
   ReviewRecordResponse,
   ReviewSubjectKind,
@@ -307,6 +308,32 @@ describe("the record's audit trail", () => {
     expect((await api(fieldToken).get(`/reviews/records/checklistRun/${runId}`)).status).toBe(403);
     const missing = await api(reviewerToken).get(`/reviews/records/leg/${crypto.randomUUID()}`);
     expect(missing.status).toBe(404);
+  });
+});
+
+describe("a site's change history", () => {
+  it("gives each edit with its device and the values before and after", async () => {
+    const { changes } = await pullAll(ctx.app, fieldToken, campaignId);
+    const site = changes.find((c) => c.entity === "site" && c.id === siteId);
+    if (site?.entity !== "site") throw new Error("the site was not pulled");
+    const res = await push([
+      tablet.mutation("site.update", {
+        id: siteId,
+        changes: { notes: "Door code changed" },
+        base: { notes: site.data.notes },
+      }),
+    ]);
+    expect(res.body.results[0]?.status).toBe("applied");
+    const trail = await api(reviewerToken).get(`/audit/site/${siteId}`);
+    expect(trail.status).toBe(200);
+    const last = (trail.body as { trail: AuditEventView[] }).trail.at(-1);
+    expect(last).toMatchObject({ entity: "site", clientId: tablet.clientId });
+    expect(last?.before).toMatchObject({ notes: site.data.notes });
+    expect(last?.after).toMatchObject({ notes: "Door code changed" });
+    const unknown = await api(reviewerToken).get(`/audit/users/${siteId}`);
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.message).toMatch(/^entity: /);
+    expect((await api(fieldToken).get(`/audit/site/${siteId}`)).status).toBe(403);
   });
 });
 

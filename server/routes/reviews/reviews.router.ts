@@ -6,8 +6,10 @@ import {
   reviewQueueQuery,
   reviewSubjectKind,
   summarySubscriptionInput,
+  trailEntity,
 } from "../../../shared/schemas/reviews";
 import type { Db } from "../../db/client";
+import { trailOf } from "../../db/repositories/audit";
 import { hasSummarySubscription, setSummarySubscription } from "../../db/repositories/reviews";
 import { requireAction, scope } from "../../middleware/authorize";
 import { parseInput } from "../../middleware/validate";
@@ -24,6 +26,11 @@ const recordParams = z.object({
   recordId: z.uuid("The record id must be a UUID"),
 });
 
+const trailParams = z.object({
+  entity: trailEntity,
+  entityId: z.uuid("The record id must be a UUID"),
+});
+
 /** Mounted under /api/campaigns/:campaignId after the membership check. */
 export function reviewsRouter({ db, linkBase, onMailQueued }: ReviewsDeps): Router {
   const router = Router({ mergeParams: true });
@@ -34,6 +41,10 @@ export function reviewsRouter({ db, linkBase, onMailQueued }: ReviewsDeps): Rout
   router.get("/reviews/records/:kind/:recordId", requireAction("audit.read"), async (req, res) => {
     const { kind, recordId } = parseInput(recordParams, req.params);
     res.json(await reviewRecord(db, scope(req).campaignId, kind, recordId));
+  });
+  router.get("/audit/:entity/:entityId", requireAction("audit.read"), async (req, res) => {
+    const { entity, entityId } = parseInput(trailParams, req.params);
+    res.json({ trail: await trailOf(db, scope(req).campaignId, entity, entityId) });
   });
   router.post("/reviews", requireAction("entry.review"), async (req, res) => {
     const input = parseInput(reviewDecisionInput, req.body);

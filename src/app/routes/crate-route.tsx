@@ -17,6 +17,7 @@ import { Loading } from "../../components/loading";
 import { Notice } from "../../components/notice";
 import { PageHeader } from "../../components/page-header";
 import { useCampaign } from "../layouts/campaign-layout";
+import { RecordHistory } from "../../features/review/components/record-history";
 import { NotFoundHere } from "../not-found-here";
 import { paths } from "../paths";
 
@@ -131,6 +132,9 @@ export function CrateRoute() {
           <Notice tone="danger" title="Held for inspection">
             Do not move or open this crate until logistics releases it.
           </Notice>
+        )}
+        {can(role, "audit.read") && (
+          <RecordHistory campaignId={campaignId} entity="crate" id={crate.id} />
         )}
       </div>
     </>

@@ -1,6 +1,7 @@
 import { useNavigate, useParams } from "react-router-dom";
 import { can } from "../../../shared/permissions";
 import { AttachmentPanel } from "../../features/attachments/components/attachment-panel";
+import { RecordHistory } from "../../features/review/components/record-history";
 import { DeleteSiteControl } from "../../features/sites/components/delete-site-control";
 import { EditSiteForm } from "../../features/sites/components/edit-site-form";
 import { useLocalSite } from "../../features/sites/hooks/use-local-sites";
@@ -45,6 +46,9 @@ export function SiteEditRoute() {
         subject={{ kind: "site", id: site.id, label: site.name }}
         canAdd={can(role, "attachment.write")}
       />
+      {can(role, "audit.read") && (
+        <RecordHistory campaignId={campaignId} entity="site" id={site.id} />
+      )}
       {can(role, "site.delete") && (
         <section aria-label="Delete" className="mt-10 border-t-2 border-line pt-6">
           <DeleteSiteControl
