@@ -53,7 +53,7 @@ export function assessEntry(data: FieldEntryData, crate: CrateLimits | null): En
         };
       return {
         exceeded: true,
-        summary: `${exceedances.length} peaks above ${g(crate.maxShockG)}; highest ${g(worst.peakG)} on ${worst.axis ?? "an axis"}`,
+        summary: `${exceedances.length} ${exceedances.length === 1 ? "peak" : "peaks"} above ${g(crate.maxShockG)}; highest ${g(worst.peakG)} on ${worst.axis ?? "an axis"}`,
       };
     }
     case "temperatures": {

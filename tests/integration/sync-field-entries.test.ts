@@ -202,7 +202,7 @@ describe("field entries through sync", () => {
       }),
     );
     expect(above.flags.exceeded).toBe(true);
-    expect(above.flags.summary).toBe("1 peaks above 15 g; highest 22.4 g on z");
+    expect(above.flags.summary).toBe("1 peak above 15 g; highest 22.4 g on z");
 
     const below = await addAndPull(
       entry({ kind: "shock-log", source: "manual", events: [shockEvent(9), shockEvent(14.9)] }),

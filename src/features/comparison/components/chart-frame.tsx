@@ -1,5 +1,5 @@
 // A uPlot chart with a title, a text alternative and a table of the same numbers behind a toggle.
-import { useState, type ReactNode } from "react";
+import { useCallback, useState, type ReactNode } from "react";
 import type uPlot from "uplot";
 import { Button } from "../../../components/button";
 import { Loading } from "../../../components/loading";
@@ -19,9 +19,19 @@ interface ChartFrameProps {
   testId: string;
 }
 
+/** Room on the right so the last x-axis label (e.g. "100,000") is not cut off at the edge. */
+const rightPaddingPx = 32;
+
 export function ChartFrame(props: ChartFrameProps) {
   const { title, description, options, data, table, caption, testId } = props;
-  const { box, state } = useUplot(options, data, chartHeightPx);
+  const padded = useCallback(
+    (UPlot: typeof uPlot, widthPx: number): uPlot.Options => {
+      const made = options(UPlot, widthPx);
+      return { ...made, padding: made.padding ?? [12, rightPaddingPx, 0, 0] };
+    },
+    [options],
+  );
+  const { box, state } = useUplot(padded, data, chartHeightPx);
   const [showTable, setShowTable] = useState(false);
 
   return (
