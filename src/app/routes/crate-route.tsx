@@ -17,6 +17,7 @@ import { Loading } from "../../components/loading";
 import { Notice } from "../../components/notice";
 import { PageHeader } from "../../components/page-header";
 import { useCampaign } from "../layouts/campaign-layout";
+import { useApprovedIds } from "../../features/review/hooks/use-local-reviews";
 import { RecordHistory } from "../../features/review/components/record-history";
 import { NotFoundHere } from "../not-found-here";
 import { paths } from "../paths";
@@ -26,6 +27,7 @@ export function CrateRoute() {
   const { crateId = "" } = useParams();
   const record = useCrateRecord(campaignId, crateId);
   const all = useLogistics(campaignId);
+  const approvedIds = useApprovedIds(campaignId);
   const [editing, setEditing] = useState(false);
   if (record === undefined || all === undefined)
     return <Loading label="Reading the crate on this device…" />;
@@ -106,6 +108,7 @@ export function CrateRoute() {
             sites={sites}
             canRecord={can(role, "leg.record")}
             canPlan={can(role, "leg.plan")}
+            approvedIds={approvedIds}
           />
           {can(role, "leg.plan") && (
             <PlanLegForm

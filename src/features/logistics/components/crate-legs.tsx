@@ -16,9 +16,12 @@ interface Props {
   sites: readonly LocalSite[];
   canRecord: boolean;
   canPlan: boolean;
+  /** Legs the office approved: read-only until reopened. */
+  approvedIds?: ReadonlySet<string>;
 }
 
-export function CrateLegs({ campaignId, legs, sites, canRecord, canPlan }: Props) {
+export function CrateLegs(props: Props) {
+  const { campaignId, legs, sites, canRecord, canPlan, approvedIds } = props;
   const writes = useLogisticsWrites(campaignId);
   const [failure, setFailure] = useState<string | null>(null);
   const name = (id: string) => sites.find((s) => s.id === id)?.name ?? "a site not on this device";
@@ -33,6 +36,7 @@ export function CrateLegs({ campaignId, legs, sites, canRecord, canPlan }: Props
         {legs.map((leg) => {
           const state = legState(leg);
           const route = `${name(leg.fromSiteId)} → ${name(leg.toSiteId)}`;
+          const approved = approvedIds?.has(leg.id) ?? false;
           return (
             <li
               key={leg.id}
@@ -59,8 +63,9 @@ export function CrateLegs({ campaignId, legs, sites, canRecord, canPlan }: Props
                 </p>
               )}
               {leg.note !== "" && <p className="whitespace-pre-line text-sm">{leg.note}</p>}
+              {approved && <p className="text-sm font-semibold">Approved by the office</p>}
               <div className="flex flex-wrap gap-3">
-                {canRecord && state === "planned" && (
+                {canRecord && !approved && state === "planned" && (
                   <Button
                     tone="primary"
                     onClick={() => run(() => writes.depart(leg.id))}
@@ -69,7 +74,7 @@ export function CrateLegs({ campaignId, legs, sites, canRecord, canPlan }: Props
                     Depart
                   </Button>
                 )}
-                {canRecord && state === "under-way" && (
+                {canRecord && !approved && state === "under-way" && (
                   <Button
                     tone="primary"
                     onClick={() => run(() => writes.arrive(leg.id))}
@@ -78,7 +83,7 @@ export function CrateLegs({ campaignId, legs, sites, canRecord, canPlan }: Props
                     Arrive
                   </Button>
                 )}
-                {canPlan && state === "planned" && (
+                {canPlan && !approved && state === "planned" && (
                   <Button
                     tone="danger"
                     onClick={() => run(() => writes.cancel(leg.id))}
