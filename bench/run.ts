@@ -3,6 +3,7 @@
 // measured in the same run.
 import { writeFileSync } from "node:fs";
 import { cpus, loadavg, totalmem } from "node:os";
+import { printClientRows, runClientBench } from "./client";
 import { printScienceRows, runScienceBench } from "./science";
 import { printSeriesStorageRows, runSeriesStorageBench } from "./series-storage";
 import { printSyncRows, runSyncBench } from "./sync";
@@ -23,9 +24,11 @@ const sync = await runSyncBench();
 printSyncRows(sync);
 const seriesStorage = await runSeriesStorageBench();
 printSeriesStorageRows(seriesStorage);
+const client = await runClientBench();
+printClientRows(client);
 writeFileSync(
   "bench/results.json",
-  JSON.stringify({ machine, science, sync, seriesStorage }, null, 2),
+  JSON.stringify({ machine, science, sync, seriesStorage, client }, null, 2),
 );
 console.log(
   `\nMachine: ${machine.cpu}, ${machine.cores} cores, ${machine.memoryGiB} GiB, Node ${machine.node}`,

@@ -1,0 +1,101 @@
+// The initial route's JavaScript (what the sign-in page and the site board request, gzipped) and
+// the site board's largest contentful paint, served by the service worker, with the CPU slowed 4×.
+import type { Page, Response } from "playwright-core";
+import { waitForSyncStatus } from "../../tests/e2e/flows";
+import { median } from "../science/timing";
+import { sizeFiles, type SizedFile } from "./build";
+import { lcpEntry, readLcp } from "./page-scripts";
+import type { DemoCampaign } from "./seed";
+import { boardUrl, signInAs, waitForBoard, waitForServiceWorker, type Tablet } from "./tablet";
+
+export interface InitialJs {
+  files: SizedFile[];
+  gzipBytes: number;
+  /** Chunks that must stay lazy and were requested anyway. */
+  lazyLoaded: string[];
+}
+
+const isScript = (path: string) => /\.m?js$/.test(path);
+const lazyChunk = /\/(maplibre|uplot|campaign-map|report-map|preview\.worker)[^/]*\.m?js$/;
+
+function recordScripts(page: Page, origin: string): Set<string> {
+  const paths = new Set<string>();
+  page.on("request", (request) => {
+    const url = new URL(request.url());
+    if (url.origin === origin && isScript(url.pathname)) paths.add(url.pathname);
+  });
+  return paths;
+}
+
+/** Signs in through the page, opens the site board, and leaves the tablet synced and SW-controlled. */
+export async function measureInitialJs(
+  tablet: Tablet,
+  baseUrl: string,
+  buildDir: string,
+  demo: DemoCampaign,
+): Promise<InitialJs> {
+  const { page } = tablet;
+  const paths = recordScripts(page, new URL(baseUrl).origin);
+  await signInAs(page, baseUrl, "field");
+  await page.goto(boardUrl(baseUrl, demo.campaignId, demo.siteId));
+  await waitForBoard(page, demo.siteName);
+  await waitForSyncStatus(page, "All changes sent", 30_000);
+  await page.waitForLoadState("networkidle");
+  const files = sizeFiles(buildDir, paths).sort((a, b) => b.gzipBytes - a.gzipBytes);
+  await waitForServiceWorker(page);
+  return {
+    files,
+    gzipBytes: files.reduce((sum, f) => sum + f.gzipBytes, 0),
+    lazyLoaded: files.map((f) => f.path).filter((p) => lazyChunk.test(p)),
+  };
+}
+
+export interface BoardLcp {
+  runsMs: number[];
+  medianMs: number;
+  element: string;
+  /** Document and script responses of the measured reloads, and how many the worker answered. */
+  responses: number;
+  fromWorker: number;
+}
+
+export async function measureBoardLcp(
+  tablet: Tablet,
+  baseUrl: string,
+  demo: DemoCampaign,
+  reloads: number,
+): Promise<BoardLcp> {
+  const { page } = tablet;
+  const shell: Response[] = [];
+  const onResponse = (r: Response) => {
+    const type = r.request().resourceType();
+    if (type === "document" || type === "script") shell.push(r);
+  };
+  const url = boardUrl(baseUrl, demo.campaignId, demo.siteId);
+  if (page.url() !== url) await page.goto(url);
+  await waitForBoard(page, demo.siteName);
+  page.on("response", onResponse);
+  await tablet.throttle(4);
+  const runsMs: number[] = [];
+  let element = "";
+  try {
+    for (let i = 0; i < reloads; i++) {
+      await page.reload();
+      await waitForBoard(page, demo.siteName);
+      const entry = lcpEntry.parse(await page.evaluate(readLcp));
+      if (entry === null) throw new Error("no largest-contentful-paint entry on the board");
+      runsMs.push(entry.ms);
+      element = entry.element;
+    }
+  } finally {
+    await tablet.throttle(1);
+    page.off("response", onResponse);
+  }
+  return {
+    runsMs,
+    medianMs: median(runsMs),
+    element,
+    responses: shell.length,
+    fromWorker: shell.filter((r) => r.fromServiceWorker()).length,
+  };
+}
