@@ -3,6 +3,7 @@
 // measured in the same run.
 import { writeFileSync } from "node:fs";
 import { cpus, loadavg, totalmem } from "node:os";
+import { printApiLoadRows, runApiLoadBench } from "./api-load";
 import { printClientRows, runClientBench } from "./client";
 import { printScienceRows, runScienceBench } from "./science";
 import { printSeriesStorageRows, runSeriesStorageBench } from "./series-storage";
@@ -22,13 +23,15 @@ const science = await runScienceBench();
 printScienceRows(science);
 const sync = await runSyncBench();
 printSyncRows(sync);
+const apiLoad = await runApiLoadBench();
+printApiLoadRows(apiLoad);
 const seriesStorage = await runSeriesStorageBench();
 printSeriesStorageRows(seriesStorage);
 const client = await runClientBench();
 printClientRows(client);
 writeFileSync(
   "bench/results.json",
-  JSON.stringify({ machine, science, sync, seriesStorage, client }, null, 2),
+  JSON.stringify({ machine, science, sync, apiLoad, seriesStorage, client }, null, 2),
 );
 console.log(
   `\nMachine: ${machine.cpu}, ${machine.cores} cores, ${machine.memoryGiB} GiB, Node ${machine.node}`,
