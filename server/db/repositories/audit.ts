@@ -53,6 +53,7 @@ export async function recordAudits(q: Queryable, entries: AuditEntry[]): Promise
  * The trail of one record with its parts: checklist results of a run, setups of a section, files
  * linked to it, and the review decisions on it. Oldest first.
  */
+/** `entityId` must be a UUID (the routes check it): the parts are found through their indexes. */
 export async function trailOf(q: Queryable, campaignId: string, entity: string, entityId: string) {
   const result = await q.execute<Record<string, unknown>>(sql`
     select a.id, a.at, a.action, a.entity, a.entity_id, a.user_id, u.name as user_name,
@@ -63,11 +64,11 @@ export async function trailOf(q: Queryable, campaignId: string, entity: string, 
     where a.campaign_id = ${campaignId} and (
       (a.entity = ${entity} and a.entity_id = ${entityId})
       or (a.entity = 'checklistResult' and a.entity_id in
-        (select id::text from checklist_results where run_id::text = ${entityId}))
+        (select id::text from checklist_results where run_id = ${entityId}::uuid))
       or (a.entity = 'levellingSetup' and a.entity_id in
-        (select id::text from levelling_setups where section_id::text = ${entityId}))
+        (select id::text from levelling_setups where section_id = ${entityId}::uuid))
       or (a.entity = 'attachment' and a.entity_id in
-        (select id::text from attachment_links where subject_id::text = ${entityId}
+        (select id::text from attachment_links where subject_id = ${entityId}::uuid
           and campaign_id = ${campaignId})))
     order by a.id
     limit 2000`);

@@ -54,7 +54,7 @@ export function ReviewRoute() {
   const [params, setParams] = useSearchParams();
   const parsed = reviewQueueQuery.safeParse(Object.fromEntries(params));
   const query: ReviewQueueQuery = parsed.success ? parsed.data : { show: "waiting" };
-  const queue = useReviewQueue(campaignId, query);
+  const queue = useReviewQueue(campaignId, query, can(role, "entry.review"));
   const { sites } = useLocalSites(campaignId);
   if (!can(role, "entry.review"))
     return (
@@ -123,7 +123,13 @@ export function ReviewRecordRoute() {
   const { campaignId, role } = useCampaign();
   const { kind: rawKind = "", recordId = "" } = useParams();
   const kind = reviewSubjectKind.safeParse(rawKind);
-  const record = useReviewRecord(campaignId, kind.success ? kind.data : "fieldEntry", recordId);
+  // Nothing is asked for a kind that is not reviewed, nor by a role that may not read the trail.
+  const record = useReviewRecord(
+    campaignId,
+    kind.success ? kind.data : "fieldEntry",
+    recordId,
+    kind.success && can(role, "audit.read"),
+  );
   if (!can(role, "audit.read"))
     return (
       <NotAllowed

@@ -30,6 +30,7 @@ export function reviewQueueQueryOptions(campaignId: string, query: ReviewQueueQu
   });
 }
 
-export function useReviewQueue(campaignId: string, query: ReviewQueueQuery) {
-  return useQuery(reviewQueueQueryOptions(campaignId, query));
+/** `enabled` false: the caller knows the request would be refused (role), so none is sent. */
+export function useReviewQueue(campaignId: string, query: ReviewQueueQuery, enabled = true) {
+  return useQuery({ ...reviewQueueQueryOptions(campaignId, query), enabled });
 }

@@ -27,6 +27,11 @@ export function reviewRecordQueryOptions(campaignId: string, kind: ReviewSubject
   });
 }
 
-export function useReviewRecord(campaignId: string, kind: ReviewSubjectKind, id: string) {
-  return useQuery(reviewRecordQueryOptions(campaignId, kind, id));
+export function useReviewRecord(
+  campaignId: string,
+  kind: ReviewSubjectKind,
+  id: string,
+  enabled = true,
+) {
+  return useQuery({ ...reviewRecordQueryOptions(campaignId, kind, id), enabled });
 }
