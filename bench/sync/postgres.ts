@@ -47,7 +47,9 @@ async function admin(cluster: Cluster, sql: string): Promise<void> {
   }
 }
 
-const dataDir = ".equipot/pg-bench";
+// Another folder (EQUIPOT_BENCH_PG_DIR) lets two benchmark runs share the machine without one
+// stopping the other's cluster.
+const dataDir = process.env.EQUIPOT_BENCH_PG_DIR ?? ".equipot/pg-bench";
 
 export async function startBenchPostgres(): Promise<BenchPostgres> {
   // A run that was killed leaves its cluster up on another port: stop it, then start on ours.

@@ -4,7 +4,8 @@ import pg from "pg";
 import { fileURLToPath } from "node:url";
 import * as schema from "./schema";
 
-export type Db = NodePgDatabase<typeof schema>;
+/** The pool is reachable for the few statements drizzle does not build (change-feed.ts). */
+export type Db = NodePgDatabase<typeof schema> & { $client: pg.Pool };
 export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 export type Queryable = Db | Tx;
 

@@ -13,6 +13,12 @@ export interface AccessClaims {
 
 export function createTokenService(secret: string, accessTtlS: number) {
   const key = new TextEncoder().encode(secret);
+  // Imported once: given raw bytes, jose imports the key again for every token it checks.
+  let verifyKey: Promise<CryptoKey> | undefined;
+  const keyForVerify = () =>
+    (verifyKey ??= crypto.subtle.importKey("raw", key, { name: "HMAC", hash: "SHA-256" }, false, [
+      "verify",
+    ]));
   return {
     async signAccess(userId: string): Promise<string> {
       return new SignJWT({ typ: "access" })
@@ -28,7 +34,7 @@ export function createTokenService(secret: string, accessTtlS: number) {
     /** Returns the claims, or undefined for any token that is not a valid, current access token. */
     async verifyAccess(token: string): Promise<AccessClaims | undefined> {
       try {
-        const { payload } = await jwtVerify(token, key, {
+        const { payload } = await jwtVerify(token, await keyForVerify(), {
           algorithms: [algorithm],
           issuer,
           audience,

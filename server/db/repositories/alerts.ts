@@ -1,5 +1,5 @@
 // Alerts (one per entry beyond its crate's limits) and who receives them; scoped by campaign.
-import { and, asc, eq, gt, isNull } from "drizzle-orm";
+import { and, asc, eq, isNull } from "drizzle-orm";
 import type { Queryable } from "../client";
 import { alerts, campaigns, memberships, sites, users } from "../schema";
 
@@ -40,14 +40,6 @@ export async function updateAlert(
   if (!updated) throw new Error(`alert ${id} vanished during its update`);
   return updated;
 }
-
-export const alertsAfter = (q: Queryable, campaignId: string, cursor: number, limit: number) =>
-  q
-    .select()
-    .from(alerts)
-    .where(and(eq(alerts.campaignId, campaignId), gt(alerts.changeSeq, cursor)))
-    .orderBy(asc(alerts.changeSeq))
-    .limit(limit);
 
 /** The alert recipients: the campaign's logistics members whose accounts are not disabled. */
 export const alertRecipients = (q: Queryable, campaignId: string) =>

@@ -1,5 +1,5 @@
 // Attachment links (which file belongs to which record); every query is scoped by campaign.
-import { and, asc, eq, gt } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import type { Queryable } from "../client";
 import { attachmentLinks } from "../schema";
 
@@ -48,16 +48,3 @@ export async function updateAttachmentLink(
   if (!updated) throw new Error("update of attachment_links returned no row");
   return updated;
 }
-
-export const attachmentLinksAfter = (
-  q: Queryable,
-  campaignId: string,
-  cursor: number,
-  limit: number,
-) =>
-  q
-    .select()
-    .from(attachmentLinks)
-    .where(and(eq(attachmentLinks.campaignId, campaignId), gt(attachmentLinks.changeSeq, cursor)))
-    .orderBy(asc(attachmentLinks.changeSeq))
-    .limit(limit);

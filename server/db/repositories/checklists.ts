@@ -1,7 +1,7 @@
 // Checklist templates, runs and results; every query is scoped by campaign.
-import { and, asc, eq, getTableColumns, gt } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import type { Queryable } from "../client";
-import { checklistResults, checklistRuns, checklistTemplates, users } from "../schema";
+import { checklistResults, checklistRuns, checklistTemplates } from "../schema";
 
 export type ChecklistTemplateRow = typeof checklistTemplates.$inferSelect;
 export type ChecklistRunRow = typeof checklistRuns.$inferSelect;
@@ -73,38 +73,3 @@ export async function insertResult(
   if (!inserted) throw new Error("insert into checklist_results returned no row");
   return inserted;
 }
-
-type Changes<T> = (q: Queryable, campaignId: string, cursor: number, limit: number) => Promise<T[]>;
-
-export const templatesAfter: Changes<ChecklistTemplateRow> = (q, campaignId, cursor, limit) =>
-  q
-    .select()
-    .from(checklistTemplates)
-    .where(
-      and(eq(checklistTemplates.campaignId, campaignId), gt(checklistTemplates.changeSeq, cursor)),
-    )
-    .orderBy(asc(checklistTemplates.changeSeq))
-    .limit(limit);
-
-export const runsAfter: Changes<ChecklistRunRow> = (q, campaignId, cursor, limit) =>
-  q
-    .select()
-    .from(checklistRuns)
-    .where(and(eq(checklistRuns.campaignId, campaignId), gt(checklistRuns.changeSeq, cursor)))
-    .orderBy(asc(checklistRuns.changeSeq))
-    .limit(limit);
-
-/** Results with their author's name, for the tablets. */
-export const resultsAfter: Changes<ChecklistResultRow & { recordedByName: string | null }> = (
-  q,
-  campaignId,
-  cursor,
-  limit,
-) =>
-  q
-    .select({ ...getTableColumns(checklistResults), recordedByName: users.name })
-    .from(checklistResults)
-    .leftJoin(users, eq(users.id, checklistResults.recordedBy))
-    .where(and(eq(checklistResults.campaignId, campaignId), gt(checklistResults.changeSeq, cursor)))
-    .orderBy(asc(checklistResults.changeSeq))
-    .limit(limit);

@@ -1,4 +1,4 @@
-import { and, asc, eq, gt, isNull } from "drizzle-orm";
+import { and, asc, eq, isNull } from "drizzle-orm";
 import type { Queryable } from "../client";
 import { crates } from "../schema";
 
@@ -61,10 +61,3 @@ export async function updateCrate(
 }
 
 // Deleted crates are included: tablets pull the tombstone and stop offering the crate.
-export const cratesAfter = (q: Queryable, campaignId: string, cursor: number, limit: number) =>
-  q
-    .select()
-    .from(crates)
-    .where(and(eq(crates.campaignId, campaignId), gt(crates.changeSeq, cursor)))
-    .orderBy(asc(crates.changeSeq))
-    .limit(limit);

@@ -1,5 +1,5 @@
 // Field entries (append-only); every query is scoped by campaign except the id check.
-import { and, asc, eq, getTableColumns, gt, sql } from "drizzle-orm";
+import { and, eq, getTableColumns, sql } from "drizzle-orm";
 import type { Queryable } from "../client";
 import { fieldEntries, users } from "../schema";
 
@@ -49,17 +49,3 @@ export const dewPointEntriesOfRun = (q: Queryable, campaignId: string, runId: st
         sql`${fieldEntries.data}->>'runId' = ${runId}`,
       ),
     );
-
-export const entriesAfter = (
-  q: Queryable,
-  campaignId: string,
-  cursor: number,
-  limit: number,
-): Promise<FieldEntryRow[]> =>
-  q
-    .select(withAuthor)
-    .from(fieldEntries)
-    .leftJoin(users, eq(users.id, fieldEntries.recordedBy))
-    .where(and(eq(fieldEntries.campaignId, campaignId), gt(fieldEntries.changeSeq, cursor)))
-    .orderBy(asc(fieldEntries.changeSeq))
-    .limit(limit);

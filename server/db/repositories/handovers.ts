@@ -1,6 +1,6 @@
 // Handovers of a crate's custody (append-only); every query is scoped by campaign except the id
 // check.
-import { and, asc, desc, eq, getTableColumns, gt } from "drizzle-orm";
+import { and, desc, eq, getTableColumns } from "drizzle-orm";
 import type { Queryable } from "../client";
 import { handovers, users } from "../schema";
 
@@ -48,17 +48,3 @@ export async function insertHandover(
   if (!inserted) throw new Error("insert into handovers returned no row");
   return inserted;
 }
-
-export const handoversAfter = (
-  q: Queryable,
-  campaignId: string,
-  cursor: number,
-  limit: number,
-): Promise<HandoverRow[]> =>
-  q
-    .select(withRecorder)
-    .from(handovers)
-    .leftJoin(users, eq(users.id, handovers.recordedBy))
-    .where(and(eq(handovers.campaignId, campaignId), gt(handovers.changeSeq, cursor)))
-    .orderBy(asc(handovers.changeSeq))
-    .limit(limit);

@@ -1,6 +1,6 @@
 // A crate's legs (planned once, then departed, arrived or cancelled); every query is scoped by
 // campaign except the id check.
-import { and, asc, eq, gt } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import type { Queryable } from "../client";
 import { legs } from "../schema";
 
@@ -45,11 +45,3 @@ export async function updateLeg(
   if (!updated) throw new Error("update of legs returned no row");
   return updated;
 }
-
-export const legsAfter = (q: Queryable, campaignId: string, cursor: number, limit: number) =>
-  q
-    .select()
-    .from(legs)
-    .where(and(eq(legs.campaignId, campaignId), gt(legs.changeSeq, cursor)))
-    .orderBy(asc(legs.changeSeq))
-    .limit(limit);

@@ -1,6 +1,6 @@
 // Levelling sections and their setups (append-only); every query is scoped by campaign except the
 // id checks.
-import { and, asc, eq, getTableColumns, gt } from "drizzle-orm";
+import { and, asc, eq, getTableColumns } from "drizzle-orm";
 import type { Queryable } from "../client";
 import { levellingSections, levellingSetups, users } from "../schema";
 
@@ -99,27 +99,3 @@ export async function insertSetup(
   if (!inserted) throw new Error("insert into levelling_setups returned no row");
   return inserted;
 }
-
-export const sectionsAfter = (q: Queryable, campaignId: string, cursor: number, limit: number) =>
-  q
-    .select()
-    .from(levellingSections)
-    .where(
-      and(eq(levellingSections.campaignId, campaignId), gt(levellingSections.changeSeq, cursor)),
-    )
-    .orderBy(asc(levellingSections.changeSeq))
-    .limit(limit);
-
-export const setupsAfter = (
-  q: Queryable,
-  campaignId: string,
-  cursor: number,
-  limit: number,
-): Promise<LevellingSetupRow[]> =>
-  q
-    .select(setupWithAuthor)
-    .from(levellingSetups)
-    .leftJoin(users, eq(users.id, levellingSetups.recordedBy))
-    .where(and(eq(levellingSetups.campaignId, campaignId), gt(levellingSetups.changeSeq, cursor)))
-    .orderBy(asc(levellingSetups.changeSeq))
-    .limit(limit);

@@ -1,5 +1,5 @@
 // Review decisions and the records they are about. Every query is scoped by campaign.
-import { and, asc, desc, eq, gt, sql, type SQL } from "drizzle-orm";
+import { and, desc, eq, sql, type SQL } from "drizzle-orm";
 import type { ReviewSubjectKind } from "../../../shared/schemas/reviews";
 import type { Queryable } from "../client";
 import { entryReviews, reviewSummarySubscriptions, users } from "../schema";
@@ -34,15 +34,6 @@ export async function insertReview(
   if (!read) throw new Error("a review decision vanished after its insert");
   return read;
 }
-
-export const reviewsAfter = (q: Queryable, campaignId: string, cursor: number, limit: number) =>
-  q
-    .select(withName)
-    .from(entryReviews)
-    .leftJoin(users, eq(users.id, entryReviews.decidedBy))
-    .where(and(eq(entryReviews.campaignId, campaignId), gt(entryReviews.changeSeq, cursor)))
-    .orderBy(asc(entryReviews.changeSeq))
-    .limit(limit);
 
 /** Every decision on one record, newest first. */
 export const reviewsOf = (

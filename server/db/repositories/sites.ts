@@ -1,17 +1,28 @@
-import { and, asc, eq, isNull, sql } from "drizzle-orm";
+import { and, asc, eq, isNull, sql, type SQLWrapper } from "drizzle-orm";
 import type { Queryable } from "../client";
+import { poolDb, preparedOn } from "../prepared";
 import { sites } from "../schema";
 import { wellFormed } from "../storable";
 
 export type SiteRow = typeof sites.$inferSelect;
 export type SiteInsert = typeof sites.$inferInsert;
 
-export const listSites = async (q: Queryable, campaignId: string) =>
+const sitesQuery = (q: Queryable, campaignId: SQLWrapper | string) =>
   q
     .select()
     .from(sites)
     .where(and(eq(sites.campaignId, campaignId), isNull(sites.deletedAt)))
     .orderBy(asc(sites.name));
+
+/** The site list, asked by every screen that names sites: prepared once on the pool. */
+export const listSites = async (q: Queryable, campaignId: string) => {
+  const db = poolDb(q);
+  return db
+    ? preparedOn(db, "list_sites", (d) =>
+        sitesQuery(d, sql.placeholder("campaignId")).prepare("list_sites"),
+      ).execute({ campaignId })
+    : sitesQuery(q, campaignId);
+};
 
 export const findSiteForUpdate = async (q: Queryable, campaignId: string, id: string) =>
   (

@@ -1,6 +1,6 @@
-import { and, asc, between, eq, gt } from "drizzle-orm";
+import { and, asc, between, eq } from "drizzle-orm";
 import type { Queryable } from "../client";
-import { conflicts, sites, syncClients, syncRejections } from "../schema";
+import { conflicts, syncClients, syncRejections } from "../schema";
 
 export type SyncClientRow = typeof syncClients.$inferSelect;
 export type ConflictRow = typeof conflicts.$inferSelect;
@@ -78,19 +78,3 @@ export async function updateConflict(
 ) {
   await q.update(conflicts).set(patch).where(eq(conflicts.id, id));
 }
-
-export const sitesAfter = (q: Queryable, campaignId: string, cursor: number, limit: number) =>
-  q
-    .select()
-    .from(sites)
-    .where(and(eq(sites.campaignId, campaignId), gt(sites.changeSeq, cursor)))
-    .orderBy(asc(sites.changeSeq))
-    .limit(limit);
-
-export const conflictsAfter = (q: Queryable, campaignId: string, cursor: number, limit: number) =>
-  q
-    .select()
-    .from(conflicts)
-    .where(and(eq(conflicts.campaignId, campaignId), gt(conflicts.changeSeq, cursor)))
-    .orderBy(asc(conflicts.changeSeq))
-    .limit(limit);

@@ -2,22 +2,26 @@
 // why a cursor can never skip a change that committed late).
 import type { z } from "zod";
 import type { ChangeRecord, PullResponse, pullQuery } from "../../../shared/sync/protocol";
-import type { Db, Tx } from "../../db/client";
-import { alertsAfter } from "../../db/repositories/alerts";
-import { attachmentLinksAfter } from "../../db/repositories/attachment-links";
-import { resultsAfter, runsAfter, templatesAfter } from "../../db/repositories/checklists";
-import { cratesAfter } from "../../db/repositories/crates-benchmarks";
-import { entriesAfter } from "../../db/repositories/field-entries";
-import { handoversAfter } from "../../db/repositories/handovers";
-import { sectionsAfter, setupsAfter } from "../../db/repositories/levelling";
-import { legsAfter } from "../../db/repositories/legs";
-import { reviewsAfter } from "../../db/repositories/reviews";
+import type { PgColumn, PgTable } from "drizzle-orm/pg-core";
+import type { Db } from "../../db/client";
+import { changeFeed, type FeedTable } from "../../db/repositories/change-feed";
+import { rejectionsBetween } from "../../db/repositories/sync";
 import {
-  conflictsAfter,
-  findSyncClient,
-  rejectionsBetween,
-  sitesAfter,
-} from "../../db/repositories/sync";
+  alerts,
+  attachmentLinks,
+  checklistResults,
+  checklistRuns,
+  checklistTemplates,
+  conflicts,
+  crates,
+  entryReviews,
+  fieldEntries,
+  handovers,
+  legs,
+  levellingSections,
+  levellingSetups,
+  sites,
+} from "../../db/schema";
 import { forbidden } from "../../http-errors";
 import { presentAlert } from "../../presenters/alert";
 import { presentAttachmentLink } from "../../presenters/attachment-link";
@@ -32,149 +36,87 @@ import { presentSite } from "../../presenters/site";
 import { assertProtocol } from "./push";
 
 type PullQuery = z.output<typeof pullQuery>;
-type Source = (
-  tx: Tx,
-  campaignId: string,
-  cursor: number,
-  limit: number,
-) => Promise<ChangeRecord[]>;
+type Entity = ChangeRecord["entity"];
+type Data<E extends Entity> = Extract<ChangeRecord, { entity: E }>["data"];
 
-/** Every synced table, each read after the cursor; a new entity adds one line here. */
-const sources: Source[] = [
-  async (tx, ...range) =>
-    (await sitesAfter(tx, ...range)).map((r) => ({
-      entity: "site",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentSite(r),
-    })),
-  async (tx, ...range) =>
-    (await conflictsAfter(tx, ...range)).map((r) => ({
-      entity: "conflict",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentConflict(r),
-    })),
-  async (tx, ...range) =>
-    (await attachmentLinksAfter(tx, ...range)).map((r) => ({
-      entity: "attachment",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentAttachmentLink(r),
-    })),
-  async (tx, ...range) =>
-    (await templatesAfter(tx, ...range)).map((r) => ({
-      entity: "checklistTemplate",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentTemplate(r),
-    })),
-  async (tx, ...range) =>
-    (await runsAfter(tx, ...range)).map((r) => ({
-      entity: "checklistRun",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentRun(r),
-    })),
-  async (tx, ...range) =>
-    (await resultsAfter(tx, ...range)).map((r) => ({
-      entity: "checklistResult",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentResult(r),
-    })),
+interface Source extends FeedTable {
+  readonly present: (row: Record<string, unknown>) => unknown;
+}
+
+/** A table read as drizzle's select gives its rows; the presenter is checked against that shape. */
+const source = <E extends Entity, T extends PgTable>(
+  entity: E,
+  table: T,
+  present: (row: T["$inferSelect"]) => Data<E>,
+): Source => ({ entity, table, present: present as (row: Record<string, unknown>) => unknown });
+
+/** Likewise, with the name of the user in column `by` under the key `as`. */
+const authored = <E extends Entity, T extends PgTable, K extends string>(
+  entity: E,
+  table: T,
+  present: (row: T["$inferSelect"] & Record<K, string | null>) => Data<E>,
+  by: PgColumn,
+  as: K,
+): Source => ({
+  entity,
+  table,
+  author: { by, as },
+  present: present as (row: Record<string, unknown>) => unknown,
+});
+
+const by = "recordedByName";
+
+/** Every synced table; a new entity adds one line here. */
+const sources = [
+  source("site", sites, presentSite),
+  source("conflict", conflicts, presentConflict),
+  source("attachment", attachmentLinks, presentAttachmentLink),
+  source("checklistTemplate", checklistTemplates, presentTemplate),
+  source("checklistRun", checklistRuns, presentRun),
+  authored("checklistResult", checklistResults, presentResult, checklistResults.recordedBy, by),
   // Edited over REST by logistics; deleted crates come as tombstones (deletedAt set).
-  async (tx, ...range) =>
-    (await cratesAfter(tx, ...range)).map((r) => ({
-      entity: "crate",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentCrate(r),
-    })),
-  async (tx, ...range) =>
-    (await entriesAfter(tx, ...range)).map((r) => ({
-      entity: "fieldEntry",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentFieldEntry(r),
-    })),
-  async (tx, ...range) =>
-    (await sectionsAfter(tx, ...range)).map((r) => ({
-      entity: "levellingSection",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentSection(r),
-    })),
-  async (tx, ...range) =>
-    (await setupsAfter(tx, ...range)).map((r) => ({
-      entity: "levellingSetup",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentSetup(r),
-    })),
-  async (tx, ...range) =>
-    (await legsAfter(tx, ...range)).map((r) => ({
-      entity: "leg",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentLeg(r),
-    })),
-  async (tx, ...range) =>
-    (await handoversAfter(tx, ...range)).map((r) => ({
-      entity: "handover",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentHandover(r),
-    })),
-  async (tx, ...range) =>
-    (await alertsAfter(tx, ...range)).map((r) => ({
-      entity: "alert",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentAlert(r),
-    })),
+  source("crate", crates, presentCrate),
+  authored("fieldEntry", fieldEntries, presentFieldEntry, fieldEntries.recordedBy, by),
+  source("levellingSection", levellingSections, presentSection),
+  authored("levellingSetup", levellingSetups, presentSetup, levellingSetups.recordedBy, by),
+  source("leg", legs, presentLeg),
+  authored("handover", handovers, presentHandover, handovers.recordedBy, by),
+  source("alert", alerts, presentAlert),
   // Review decisions, so the author sees a send-back and an approved record turns read-only.
-  async (tx, ...range) =>
-    (await reviewsAfter(tx, ...range)).map((r) => ({
-      entity: "review",
-      seq: r.changeSeq,
-      id: r.id,
-      data: presentReview(r),
-    })),
+  authored("review", entryReviews, presentReview, entryReviews.decidedBy, "decidedByName"),
 ];
+
+const presenters = new Map(sources.map((s) => [s.entity, s.present]));
+const readFeed = changeFeed(sources);
 
 export async function pull(db: Db, userId: string, query: PullQuery): Promise<PullResponse> {
   assertProtocol(query.protocolVersion);
-  // One snapshot for every table read, so a page is consistent across entities.
-  return db.transaction(
-    async (tx) => {
-      const { campaign, cursor, limit } = query;
-      // Each source reads one row past the page, so "more" is known without a count.
-      // One after the other: a transaction's connection runs one query at a time anyway.
-      const read: ChangeRecord[] = [];
-      for (const source of sources) read.push(...(await source(tx, campaign, cursor, limit + 1)));
-      const all = read.sort((a, b) => a.seq - b.seq);
-      const changes = all.slice(0, limit);
-      const hasMore = all.length > limit;
-      let lastMutationId: number | null = null;
-      let rejections: PullResponse["rejections"] = [];
-      if (query.clientId) {
-        const client = await findSyncClient(tx, query.clientId);
-        if (client && client.userId !== userId)
-          throw forbidden("This device is registered to another user");
-        lastMutationId = client?.lastMutationId ?? 0;
-        // Named on the last page only: that is where the client lets confirmed entries go.
-        if (client && !hasMore && query.pendingFrom !== undefined)
-          rejections = await rejectionsBetween(tx, client.id, query.pendingFrom, lastMutationId);
-      }
-      return {
-        changes,
-        cursor: changes.at(-1)?.seq ?? cursor,
-        hasMore,
-        lastMutationId,
-        rejections,
-      };
-    },
-    { isolationLevel: "repeatable read", accessMode: "read only" },
-  );
+  const { campaign, cursor, limit } = query;
+  // One row past the page, so "more" is known without a count; the device in the same snapshot.
+  const page = await readFeed(db, campaign, cursor, limit + 1, query.clientId ?? null);
+  const hasMore = page.rows.length > limit;
+  const changes = page.rows.slice(0, limit).map((r) => {
+    // The feed only returns the entities it was given, so the presenter is always there.
+    const present = presenters.get(r.entity) as Source["present"];
+    return { entity: r.entity, seq: r.seq, id: r.row.id, data: present(r.row) } as ChangeRecord;
+  });
+  let lastMutationId: number | null = null;
+  let rejections: PullResponse["rejections"] = [];
+  if (query.clientId) {
+    const { client } = page;
+    if (client && client.userId !== userId)
+      throw forbidden("This device is registered to another user");
+    lastMutationId = client?.lastMutationId ?? 0;
+    // Named on the last page only: that is where the client lets confirmed entries go. Refusals
+    // are only ever added, and the range ends at the position read with the page.
+    if (client && !hasMore && query.pendingFrom !== undefined)
+      rejections = await rejectionsBetween(db, query.clientId, query.pendingFrom, lastMutationId);
+  }
+  return {
+    changes,
+    cursor: changes.at(-1)?.seq ?? cursor,
+    hasMore,
+    lastMutationId,
+    rejections,
+  };
 }
