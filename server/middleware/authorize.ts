@@ -10,8 +10,8 @@ import { requireAuth } from "./authenticate";
 const campaignIdParam = z.uuid();
 
 /** Loads the caller's membership of :campaignId; non-members get 404 so nothing of the campaign leaks. */
-export function campaignMember(db: Db): RequestHandler {
-  return async (req, _res, next) => {
+export function campaignMember(db: Db): RequestHandler & { readonly campaignScope: true } {
+  const member: RequestHandler = async (req, _res, next) => {
     const { userId } = requireAuth(req);
     const parsed = campaignIdParam.safeParse(req.params.campaignId);
     const membership = parsed.success ? await findMembership(db, userId, parsed.data) : undefined;
@@ -19,13 +19,18 @@ export function campaignMember(db: Db): RequestHandler {
     req.membership = { campaignId: parsed.data, role: membership.role };
     next();
   };
+  return Object.assign(member, { campaignScope: true as const });
 }
 
-export function requireAction(action: Action): RequestHandler {
-  return (req, _res, next) => {
+/** The handler names its action, so the route table can be read off the app (access tests). */
+export type ActionGuard = RequestHandler & { readonly action: Action };
+
+export function requireAction(action: Action): ActionGuard {
+  const guard: RequestHandler = (req, _res, next) => {
     if (!can(req.membership?.role, action)) throw forbidden();
     next();
   };
+  return Object.assign(guard, { action });
 }
 
 export function scope(req: Request): { campaignId: string; role: Role; userId: string } {
