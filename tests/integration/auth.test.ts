@@ -70,6 +70,31 @@ describe("sign-in", () => {
     expect(foreignOrigin.status).toBe(403);
   });
 
+  it("takes about as long for an unknown e-mail as for a wrong password (no account probing)", async () => {
+    const time = async (email: string) => {
+      const t0 = performance.now();
+      const res = await signIn(email, "not-the-password");
+      expect(res.status).toBe(401);
+      return { ms: performance.now() - t0, message: res.body.error.message as string };
+    };
+    // Below the account's free failures, so no throttle answers early; alternating.
+    const known: number[] = [];
+    const unknown: number[] = [];
+    const messages = new Set<string>();
+    for (let i = 0; i < 4; i++) {
+      const a = await time("geodesist@demo.equipot.test");
+      const b = await time(`nobody-${i}@demo.equipot.test`);
+      known.push(a.ms);
+      unknown.push(b.ms);
+      messages.add(a.message).add(b.message);
+    }
+    expect(messages.size).toBe(1);
+    const median = (v: number[]) => [...v].sort((x, y) => x - y)[Math.floor(v.length / 2)] ?? 0;
+    // A skipped hash would make the unknown e-mail about 20× faster (argon2id takes tens of ms).
+    expect(median(unknown) / median(known)).toBeGreaterThan(0.5);
+    expect(median(unknown) / median(known)).toBeLessThan(2);
+  });
+
   it("throttles repeated failures for one account before hashing, with Retry-After", async () => {
     const email = "reviewer@demo.equipot.test";
     const statuses: number[] = [];
@@ -127,6 +152,39 @@ describe("access tokens", () => {
       const res = await me(bad);
       expect(res.status, bad.slice(0, 40)).toBe(401);
       expect(res.body.error.code).toBe("unauthenticated");
+    }
+  });
+
+  it("refuses a wrong issuer, a token not valid yet, another algorithm, another type and a refresh token", async () => {
+    const session = await signInAs(ctx.app, "field");
+    const { sub } = JSON.parse(
+      new TextDecoder().decode(base64url.decode(session.token.split(".")[1] ?? "")),
+    ) as { sub: string };
+    const key = new TextEncoder().encode(ctx.config.JWT_SECRET);
+    const now = Math.floor(Date.now() / 1000);
+    // Each differs from a good token in one thing only.
+    const make = (change: { alg?: string; iss?: string; nbf?: number; typ?: string }) =>
+      new SignJWT({ typ: change.typ ?? "access" })
+        .setProtectedHeader({ alg: change.alg ?? "HS256" })
+        .setSubject(sub)
+        .setIssuer(change.iss ?? issuer)
+        .setAudience(audience)
+        .setNotBefore(change.nbf ?? now - 1)
+        .setExpirationTime(now + 300)
+        .sign(key);
+    expect((await me(await make({}))).status).toBe(200);
+    const refreshToken = decodeURIComponent(session.cookie.split("=")[1] ?? "");
+    const bad = {
+      wrongIssuer: await make({ iss: "someone-else" }),
+      notYetValid: await make({ nbf: now + 600 }),
+      hs512: await make({ alg: "HS512" }),
+      refreshType: await make({ typ: "refresh" }),
+      refreshToken,
+    };
+    for (const [name, token] of Object.entries(bad)) {
+      const res = await me(token);
+      expect(res.status, name).toBe(401);
+      expect(res.body.error.code, name).toBe("unauthenticated");
     }
   });
 });
