@@ -1,5 +1,6 @@
 // What an upload is, decided from its bytes; and the name it may be shown under.
 import { fileTypeFromBuffer } from "file-type";
+import { imageSize } from "image-size";
 import {
   attachmentContentTypes,
   attachmentLimits,
@@ -55,7 +56,10 @@ export async function sniffContentType(
 ): Promise<AttachmentContentType> {
   const detected = await fileTypeFromBuffer(sample.head);
   if (detected) {
-    if (isBinary(detected.mime)) return detected.mime;
+    if (isBinary(detected.mime)) {
+      if (detected.mime.startsWith("image/")) assertDecodableSize(sample.head);
+      return detected.mime;
+    }
     throw unsupportedType(`The file's content is ${detected.mime}, which is not accepted`);
   }
   if (!sample.utf8Text)
@@ -68,6 +72,27 @@ export async function sniffContentType(
   throw unsupportedType(
     `The file is plain text but was sent as ${claimed}; text is accepted only as CSV (Content-Type text/csv or a name ending in .csv)`,
   );
+}
+
+/**
+ * Refuses an image whose header claims more pixels than a tablet could decode. PNG and WebP give
+ * their size at the start; a JPEG whose frame header lies past the sampled head is let through
+ * (served as an attachment, never decoded by the server).
+ */
+function assertDecodableSize(head: Buffer): void {
+  let size: { width?: number; height?: number };
+  try {
+    size = imageSize(head);
+  } catch {
+    return;
+  }
+  const pixels = (size.width ?? 0) * (size.height ?? 0);
+  if (pixels > attachmentLimits.maxImagePixels)
+    throw new HttpError(
+      413,
+      "payload_too_large",
+      `The image claims ${size.width} × ${size.height} pixels; at most ${attachmentLimits.maxImagePixels / 1e6} megapixels are accepted`,
+    );
 }
 
 // Controls and bidirectional overrides (which can disguise an extension) never reach a stored name.

@@ -7,6 +7,11 @@ export const attachmentLimits = {
   maxBytes: 25 * 1024 * 1024,
   /** Display names are cut to this many characters. */
   nameMax: 200,
+  /**
+   * Largest image by its header: 64 megapixels is above any tablet or phone camera, while a
+   * "pixel flood" file (a few kB claiming 10⁹ pixels) would take gigabytes to decode on a tablet.
+   */
+  maxImagePixels: 64_000_000,
 } as const;
 
 /** Accepted types, always decided from the bytes (CSV: valid UTF-8 text declared as CSV). */

@@ -3,6 +3,7 @@ import { mkdtemp, readdir, rm } from "node:fs/promises";
 import { request as httpRequest, type Server } from "node:http";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
+import { crc32, deflateSync } from "node:zlib";
 import { and, eq } from "drizzle-orm";
 import type { Express } from "express";
 import { pino } from "pino";
@@ -71,6 +72,41 @@ afterAll(async () => {
 });
 
 const pdf = Buffer.from("%PDF-1.7\n1 0 obj <<>> endobj\ntrailer <<>>\n%%EOF\n");
+
+// PNG chunks as the PNG specification (W3C, 2003) lays them out: length, type, data, CRC-32.
+function chunk(type: string, data: Buffer): Buffer {
+  const length = Buffer.alloc(4);
+  length.writeUInt32BE(data.length);
+  const body = Buffer.concat([Buffer.from(type, "latin1"), data]);
+  const crc = Buffer.alloc(4);
+  crc.writeUInt32BE(crc32(body));
+  return Buffer.concat([length, body, crc]);
+}
+/** An RGB PNG of width × height whose pixel data is only the first row (the header is the test). */
+function png(width: number, height: number, extra: Buffer[] = []): Buffer {
+  const ihdr = Buffer.alloc(13);
+  ihdr.writeUInt32BE(width, 0);
+  ihdr.writeUInt32BE(height, 4);
+  ihdr.set([8, 2, 0, 0, 0], 8); // 8-bit RGB, deflate, no filter, no interlace
+  const row = deflateSync(Buffer.alloc(1 + 3 * Math.min(width, 1024)));
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+    chunk("IHDR", ihdr),
+    ...extra,
+    chunk("IDAT", row),
+    chunk("IEND", Buffer.alloc(0)),
+  ]);
+}
+/** A baseline JPEG header (ITU-T T.81: SOI, APP0 JFIF, SOF0) claiming height × width. */
+function jpegHeader(width: number, height: number): Buffer {
+  const sof = Buffer.from([0xff, 0xc0, 0, 11, 8, 0, 0, 0, 0, 1, 1, 0x11, 0]);
+  sof.writeUInt16BE(height, 5);
+  sof.writeUInt16BE(width, 7);
+  const app0 = Buffer.from([
+    0xff, 0xe0, 0, 16, 0x4a, 0x46, 0x49, 0x46, 0, 1, 1, 0, 0, 1, 0, 1, 0, 0,
+  ]);
+  return Buffer.concat([Buffer.from([0xff, 0xd8]), app0, sof, Buffer.from([0xff, 0xd9])]);
+}
 
 describe("refused uploads store nothing", () => {
   it("answers a checksum mismatch with 400 and keeps neither row nor object", async () => {
@@ -147,6 +183,19 @@ describe("refused uploads store nothing", () => {
       /Accepted: JPEG, PNG or WebP images, PDF documents and CSV text/,
     );
     expect(await rowCount()).toBe(0);
+    expect(await storedFiles()).toEqual([]);
+  });
+
+  it.each([
+    ["a PNG claiming 100,000 × 100,000 pixels", png(100_000, 100_000), /100000 × 100000 pixels/],
+    ["a JPEG claiming 65,535 × 65,535 pixels", jpegHeader(65_535, 65_535), /65535 × 65535/],
+    ["a PNG one pixel over the limit", png(8_000, 8_001), /8000 × 8001 pixels/],
+  ])("refuses %s (a pixel flood) with 413", async (_label, bytes, message) => {
+    const res = await put(bytes, { "x-file-name": "photo.png" });
+    expect(res.status).toBe(413);
+    expect(res.body.error.message).toMatch(message);
+    expect(res.body.error.message).toMatch(/at most 64 megapixels/);
+    expect(await rowCount(bytes)).toBe(0);
     expect(await storedFiles()).toEqual([]);
   });
 
@@ -236,5 +285,48 @@ describe("storage failures", () => {
     // The tablet's retry once storage is back succeeds.
     expect((await put(csv, { "Content-Type": "text/csv" })).status).toBe(201);
     expect(await rowCount(csv)).toBe(1);
+  });
+});
+
+// Last: these store files, and the refusal tests above count the campaign's rows.
+describe("accepted, and made harmless", () => {
+  it("accepts an image at the pixel limit (8,000 × 8,000)", async () => {
+    const bytes = png(8_000, 8_000);
+    const res = await put(bytes, { "x-file-name": "panorama.png" });
+    expect(res.status).toBe(201);
+    expect(await rowCount(bytes)).toBe(1);
+  });
+
+  it("neutralises an image/script polyglot: stored as a PNG, served only as a download", async () => {
+    const script = Buffer.from(
+      "<script>alert(document.cookie)</script><html><body>hi</body></html>",
+    );
+    const polyglot = Buffer.concat([
+      png(1, 1, [chunk("tEXt", Buffer.concat([Buffer.from("Comment\0"), script]))]),
+      script,
+    ]);
+    const res = await put(polyglot, { "x-file-name": "../../etc/evil.html" });
+    expect(res.status).toBe(201);
+    expect(res.body.attachment).toMatchObject({
+      contentType: "image/png",
+      originalName: "evil.html",
+    });
+    const served = await request(app)
+      .get(url(sha(polyglot)))
+      .set("Authorization", `Bearer ${token}`)
+      .buffer(true)
+      .parse((r, done) => {
+        const parts: Buffer[] = [];
+        r.on("data", (c: Buffer) => parts.push(c));
+        r.on("end", () => done(null, Buffer.concat(parts)));
+      });
+    expect(served.status).toBe(200);
+    expect(served.headers["content-type"]).toBe("image/png");
+    expect(served.headers["x-content-type-options"]).toBe("nosniff");
+    expect(served.headers["content-disposition"]).toMatch(/^attachment; filename="evil.html"/);
+    expect(served.headers["content-security-policy"]).toMatch(/default-src 'self'|sandbox/);
+    // Stored under its generated key, not under the name it was sent with.
+    const names = (await storedFiles()).map((f) => f.name);
+    expect(names.some((n) => n.includes("evil"))).toBe(false);
   });
 });
