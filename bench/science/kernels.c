@@ -105,24 +105,56 @@ static double mdev_value(double sum, long m, long terms) {
   return sqrt(sum / (2.0 * m2 * m2 * terms));
 }
 
-/* MDEV with octaves m, 2m, 4m sharing loads, as the TypeScript kernel does it. */
+/* Factors m and 2m from term j0 to 2m's last term, sharing s[j] and s[j + 2m]. Locals in the
+ * loop, so the compiler need not store through the pointers on every term. */
+static long mdev_pair(const double *s, long m, long j0, long t2, double *i1, double *a, double *i2, double *b) {
+  long j = j0;
+  double x = *i1, sa = *a, z = *i2, sb = *b;
+  for (; j + 1 < t2; j++) {
+    double s0 = s[j], s2 = s[j + 2 * m];
+    x += s[j + 3 * m] - 3 * s2 + 3 * s[j + m] - s0;
+    z += s[j + 6 * m] - 3 * s[j + 4 * m] + 3 * s2 - s0;
+    sa += x * x;
+    sb += z * z;
+  }
+  *i1 = x, *a = sa, *i2 = z, *b = sb;
+  return j;
+}
+
+/* MDEV with octaves m, 2m, 4m sharing loads, as the TypeScript kernel does it: for m = 1 the
+ * values s[j] ... s[j + 6] move through locals; after 4m's last term, m and 2m go on together. */
 static long mdev_octaves_grouped(const double *s, long n, double *out) {
   long k = 0, m = 1;
   for (; 4 * m <= (n + 1) / 3; m *= 8) {
     long t1 = n - 3 * m + 2, t2 = n - 6 * m + 2, t4 = n - 12 * m + 2, j = 0;
     double i1 = first_inner(s, m), i2 = first_inner(s, 2 * m), i4 = first_inner(s, 4 * m);
     double a = i1 * i1, b = i2 * i2, c = i4 * i4;
-    for (; j + 1 < t4; j++) {
-      double s0 = s[j], s2 = s[j + 2 * m], s4 = s[j + 4 * m];
-      i1 += s[j + 3 * m] - 3 * s2 + 3 * s[j + m] - s0;
-      i2 += s[j + 6 * m] - 3 * s4 + 3 * s2 - s0;
-      i4 += s[j + 12 * m] - 3 * s[j + 8 * m] + 3 * s4 - s0;
-      a += i1 * i1;
-      b += i2 * i2;
-      c += i4 * i4;
+    if (m == 1) {
+      double x0 = s[0], x1 = s[1], x2 = s[2], x3 = s[3], x4 = s[4], x5 = s[5];
+      for (; j + 1 < t4; j++) {
+        double x6 = s[j + 6];
+        i1 += x3 - 3 * x2 + 3 * x1 - x0;
+        i2 += x6 - 3 * x4 + 3 * x2 - x0;
+        i4 += s[j + 12] - 3 * s[j + 8] + 3 * x4 - x0;
+        a += i1 * i1;
+        b += i2 * i2;
+        c += i4 * i4;
+        x0 = x1, x1 = x2, x2 = x3, x3 = x4, x4 = x5, x5 = x6;
+      }
+    } else {
+      for (; j + 1 < t4; j++) {
+        double s0 = s[j], s2 = s[j + 2 * m], s4 = s[j + 4 * m];
+        i1 += s[j + 3 * m] - 3 * s2 + 3 * s[j + m] - s0;
+        i2 += s[j + 6 * m] - 3 * s4 + 3 * s2 - s0;
+        i4 += s[j + 12 * m] - 3 * s[j + 8 * m] + 3 * s4 - s0;
+        a += i1 * i1;
+        b += i2 * i2;
+        c += i4 * i4;
+      }
     }
+    j = mdev_pair(s, m, j, t2, &i1, &a, &i2, &b);
     out[k++] = mdev_value(mdev_carry(s, m, j, t1, i1, a), m, t1);
-    out[k++] = mdev_value(mdev_carry(s, 2 * m, j, t2, i2, b), 2 * m, t2);
+    out[k++] = mdev_value(b, 2 * m, t2);
     out[k++] = mdev_value(c, 4 * m, t4);
   }
   for (; m <= (n + 1) / 3; m *= 2) {
