@@ -28,19 +28,29 @@ export function scanSamples(data: ArrayLike<number>, field: string): SampleScan 
     }
   }
   const values = data instanceof Float64Array ? data : Float64Array.from(data);
+  const { missing, total, infiniteAt } = tally(values);
+  if (infiniteAt >= 0)
+    throw new ScienceInputError(
+      `${field}[${infiniteAt}]`,
+      "must be a finite number, or NaN to mark a missing sample",
+    );
+  return { values, missing, total };
+}
+
+/**
+ * The hot loop on its own: numbers and a typed array only, so V8 optimises it once and keeps it
+ * (inside scanSamples the object literal after the loop made it deoptimise on every call).
+ */
+function tally(values: Float64Array): { missing: number; total: number; infiniteAt: number } {
   let missing = 0;
   let total = 0;
   for (let i = 0; i < values.length; i++) {
     const v = values[i] ?? 0;
     if (v !== v) missing++;
-    else if (v === Infinity || v === -Infinity) {
-      throw new ScienceInputError(
-        `${field}[${i}]`,
-        "must be a finite number, or NaN to mark a missing sample",
-      );
-    } else total += v;
+    else if (v === Infinity || v === -Infinity) return { missing, total, infiniteAt: i };
+    else total += v;
   }
-  return { values, missing, total };
+  return { missing, total, infiniteAt: -1 };
 }
 
 export function readSamples(data: ArrayLike<number>, field: string): Float64Array {
