@@ -19,6 +19,9 @@ export function connect(url: string, max = 10): Database {
   const pool = new pg.Pool({ connectionString: url, max, idleTimeoutMillis: 30_000 });
   // A dropped idle connection must not crash the process; the pool replaces it.
   pool.on("error", () => undefined);
+  // Nor one dropped while checked out (a transaction's): the running query fails with the error,
+  // and without a listener the client's own 'error' event would be an uncaught exception.
+  pool.on("connect", (client) => client.on("error", () => undefined));
   const db = drizzle(pool, { schema });
   return { db, pool, close: () => pool.end() };
 }

@@ -23,13 +23,52 @@ function fromBodyParser(err: unknown): HttpError | undefined {
   return undefined;
 }
 
+// PostgreSQL going away (restart, failover, network): the request may be retried as it is.
+// Class 08 is connection exceptions, 57P01–57P03 shutdown and start-up (PostgreSQL's SQLSTATE list).
+const unreachable = new Set([
+  "ECONNREFUSED",
+  "ECONNRESET",
+  "EPIPE",
+  "ETIMEDOUT",
+  "57P01",
+  "57P02",
+  "57P03",
+]);
+
+function lostConnection(err: unknown): boolean {
+  // drizzle wraps the driver's error as its cause; look a few levels down.
+  for (
+    let e = err as { code?: unknown; message?: unknown; cause?: unknown } | undefined, depth = 0;
+    e && depth < 4;
+    e = e.cause as typeof e, depth++
+  ) {
+    const code = typeof e.code === "string" ? e.code : "";
+    if (unreachable.has(code) || code.startsWith("08")) return true;
+    if (typeof e.message === "string" && /Connection terminated|not queryable/i.test(e.message))
+      return true;
+  }
+  return false;
+}
+
+function fromDatabase(err: unknown): HttpError | undefined {
+  if (!lostConnection(err)) return undefined;
+  return new HttpError(
+    503,
+    "unavailable",
+    "The database cannot be reached just now; try again shortly",
+    undefined,
+    { "Retry-After": "5" },
+  );
+}
+
 export const apiNotFound: RequestHandler = (_req, _res, next) =>
   next(notFound("No such API route"));
 
 /** Registered last. Unknown errors are logged and answered 500 without internals. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
-  const known = err instanceof HttpError ? err : fromBodyParser(err);
+  const known = err instanceof HttpError ? err : (fromBodyParser(err) ?? fromDatabase(err));
   if (!known) req.log?.error({ err }, "unhandled error");
+  else if (known.status === 503) req.log?.warn({ err }, "database unreachable");
   const error = known ?? new HttpError(500, "internal", "Something went wrong on the server");
   for (const [name, value] of Object.entries(error.headers ?? {})) res.setHeader(name, value);
   const body: ErrorBody = { error: { code: error.code, message: error.message } };

@@ -4,7 +4,10 @@ import { validationFailed } from "../http-errors";
 
 export function toFieldIssues(error: z.ZodError): FieldIssue[] {
   return error.issues.map((issue) => {
-    const keys = issue.code === "unrecognized_keys" ? issue.keys : [];
+    // An empty key is still a field the caller sent: shown as "" so the answer can name it.
+    const keys = (issue.code === "unrecognized_keys" ? issue.keys : []).map((k) =>
+      k === "" ? '""' : k,
+    );
     const base = issue.path.map(String).join(".");
     const path = keys.length > 0 ? [base, keys.join(",")].filter(Boolean).join(".") : base;
     const message =

@@ -152,6 +152,20 @@ describe("generated bad input", () => {
     }
   }, 600_000);
 
+  it("names an empty key as a field (found by the soak run)", async () => {
+    const res = await send(
+      {
+        method: "POST",
+        path: "/api/campaigns/:campaignId/sites/",
+        actions: [],
+        campaignScoped: true,
+      },
+      { "": {} },
+    );
+    expect(res.status).toBe(400);
+    expect(res.body.error.details).toContainEqual({ path: '""', message: 'Unknown field: ""' });
+  });
+
   it("refuses a campaign, version or author smuggled into a site by name, and stores nothing", async () => {
     const before = await siteCount();
     const res = await send(
