@@ -69,21 +69,39 @@ export default defineConfig({
     sourcemap: true,
     rolldownOptions: {
       output: {
-        // Libraries change less often than the app: separate chunks keep updates small.
+        // React changes less often than the app: its own chunk keeps updates small. There is no
+        // catch-all library group: it would put every page's libraries (QR, ZIP, CSV, tables,
+        // statistics) into the initial route. Each library rides with the pages that import it.
         codeSplitting: {
           groups: [
             {
               name: "react",
               test: /node_modules[\\/](react|react-dom|scheduler|react-router)[\\/]/,
             },
-            // Loaded on demand by the temperature chart: keep it out of the catch-all group.
+            // What the initial route needs besides React: the local store, the schemas and the
+            // query cache. Nothing else may join this group.
+            {
+              name: "vendor",
+              test: /node_modules[\\/](dexie|dexie-react-hooks|zod|@tanstack[\\/](query-[\w-]+|react-query[\w-]*))[\\/]/,
+            },
+            // The forms of sign-in and of the editing pages.
+            { name: "forms", test: /node_modules[\\/](react-hook-form|@hookform[\\/][\w-]+)[\\/]/ },
+            // Libraries of single pages, named so that their weight shows in the build: QR
+            // scanning and labels, statistics and least squares, ZIP, CSV, the legs table. A start
+            // of the board never requests them (on a first visit the tab fetches every page:
+            // router.tsx, warmPagesWithoutWorker).
+            { name: "qr", test: /node_modules[\\/](jsqr|qrcode|dijkstrajs)[\\/]/ },
+            { name: "stats", test: /node_modules[\\/](@stdlib|ml-[\w-]+)[\\/]/ },
+            { name: "zip", test: /node_modules[\\/]fflate[\\/]/ },
+            { name: "csv", test: /node_modules[\\/]papaparse[\\/]/ },
+            { name: "table", test: /node_modules[\\/]@tanstack[\\/](react-)?(table|virtual)/ },
+            // Loaded on demand by the temperature chart.
             { name: "uplot", test: /node_modules[\\/]uplot[\\/]/ },
             // Loaded on demand by the map screen, with its bundled outlines.
             {
               name: "maplibre",
               test: /node_modules[\\/](maplibre-gl|world-atlas|topojson-client)[\\/]/,
             },
-            { name: "vendor", test: /node_modules[\\/]/ },
           ],
         },
       },

@@ -1,45 +1,43 @@
+import type { ComponentType } from "react";
 import { createBrowserRouter, Navigate, useParams } from "react-router-dom";
 import { CampaignLayout } from "./layouts/campaign-layout";
 import { PublicLayout } from "./layouts/public-layout";
 import { SignedInLayout } from "./layouts/signed-in-layout";
 import { paths } from "./paths";
 import { useSession } from "../lib/use-session";
-import { CampaignsRoute } from "./routes/campaigns-route";
-import { ConflictsRoute } from "./routes/conflicts-route";
-import { DeviceRoute } from "./routes/device-route";
-import { InviteRoute } from "./routes/invite-route";
-import { MembersRoute } from "./routes/members-route";
-import { ChecklistTemplatesRoute } from "./routes/checklist-templates-route";
-import { NotFoundRoute } from "./routes/not-found-route";
 import { RouteError } from "./routes/route-error";
-import { SignInRoute } from "./routes/sign-in-route";
-import { SiteEditRoute } from "./routes/site-edit-route";
-import { ChecklistRunRoute } from "./routes/checklist-run-route";
-import { SiteNewRoute } from "./routes/site-new-route";
-import { SitesRoute } from "./routes/sites-route";
-import { LevellingRoute } from "./routes/levelling-route";
-import { LevellingSectionRoute } from "./routes/levelling-section-route";
+import { FirstPageLoading, RouteShell } from "./routes/route-loading";
 import { BoardRoute, SiteBoardRoute } from "./routes/site-board-route";
-import { EntryNewRoute } from "./routes/entry-new-route";
-import { EntryRoute } from "./routes/entry-route";
-import { EntryImportRoute } from "./routes/entry-import-route";
-import { TemperaturesRoute } from "./routes/temperatures-route";
-import { MapRoute } from "./routes/map-route";
-import { CrateLabelRoute } from "./routes/crate-label-route";
-import { CratesRoute } from "./routes/crates-route";
-import { CrateRoute } from "./routes/crate-route";
-import { HandoverRecordRoute, HandoverRoute } from "./routes/handover-route";
-import { AlertsRoute } from "./routes/alerts-route";
-import { LogisticsDashboardRoute } from "./routes/logistics-dashboard-route";
-import { HeightsRoute } from "./routes/heights-route";
-import { BenchmarksRoute } from "./routes/benchmarks-route";
-import { InstrumentRoute, InstrumentsRoute } from "./routes/instruments-route";
-import { HeightNetworkRoute } from "./routes/height-network-route";
-import { RunEditRoute, RunNewRoute } from "./routes/run-form-route";
-import { RunRoute } from "./routes/run-route";
-import { ReviewRecordRoute, ReviewRoute } from "./routes/review-route";
-import { ExportsRoute } from "./routes/exports-route";
-import { ReportRoute } from "./routes/report-route";
+
+// The site board (the crew's home, opened at every start) is in the initial bundle; every other
+// page, sign-in included (its form library is not needed once signed in), is loaded when first
+// opened, with the libraries only it uses. Offline, a page's code comes from the service worker,
+// which precaches every chunk; before the worker controls the tab (a first visit), the tab fetches
+// every page itself once the first page is shown (warmPagesWithoutWorker), so work can go on if
+// the network goes before the worker has installed.
+
+const pageLoaders: (() => Promise<unknown>)[] = [];
+
+/** A route's `lazy`: the page component named `name` of the module `load` imports. */
+function page<K extends string, M extends Record<K, ComponentType>>(
+  load: () => Promise<M>,
+  name: K,
+): () => Promise<{ Component: ComponentType }> {
+  pageLoaders.push(load);
+  return async () => ({ Component: (await load())[name] });
+}
+
+/** Loads every page's code into this tab unless a service worker already serves it. */
+function warmPagesWithoutWorker(): void {
+  // The dev server has no service worker, and compiling every page at each load would slow it.
+  if (import.meta.env.DEV) return;
+  const controlled = "serviceWorker" in navigator && navigator.serviceWorker.controller !== null;
+  if (controlled) return;
+  // After the first page has loaded, so its own code goes first; a failure (offline) is harmless.
+  const warm = () => void Promise.allSettled(pageLoaders.map((load) => load()));
+  if (document.readyState === "complete") setTimeout(warm, 0);
+  else window.addEventListener("load", () => setTimeout(warm, 0), { once: true });
+}
 
 /** The crew starts at their site's board; everyone else at the sites. */
 function CampaignIndex() {
@@ -56,66 +54,172 @@ function CampaignIndex() {
 
 export const router = createBrowserRouter([
   {
+    element: <RouteShell />,
     errorElement: <RouteError />,
+    hydrateFallbackElement: <FirstPageLoading />,
     children: [
       {
         element: <PublicLayout />,
         children: [
-          { path: "sign-in", element: <SignInRoute /> },
-          { path: "invite/:token", element: <InviteRoute /> },
+          { path: "sign-in", lazy: page(() => import("./routes/sign-in-route"), "SignInRoute") },
+          {
+            path: "invite/:token",
+            lazy: page(() => import("./routes/invite-route"), "InviteRoute"),
+          },
         ],
       },
       {
         element: <SignedInLayout />,
         children: [
           { index: true, element: <Navigate to={paths.campaigns} replace /> },
-          { path: "campaigns", element: <CampaignsRoute /> },
-          { path: "device", element: <DeviceRoute /> },
+          {
+            path: "campaigns",
+            lazy: page(() => import("./routes/campaigns-route"), "CampaignsRoute"),
+          },
+          { path: "device", lazy: page(() => import("./routes/device-route"), "DeviceRoute") },
           {
             path: "campaigns/:campaignId",
             element: <CampaignLayout />,
             children: [
               { index: true, element: <CampaignIndex /> },
-              { path: "sites", element: <SitesRoute /> },
-              { path: "sites/new", element: <SiteNewRoute /> },
-              { path: "sites/:siteId/edit", element: <SiteEditRoute /> },
+              { path: "sites", lazy: page(() => import("./routes/sites-route"), "SitesRoute") },
+              {
+                path: "sites/new",
+                lazy: page(() => import("./routes/site-new-route"), "SiteNewRoute"),
+              },
+              {
+                path: "sites/:siteId/edit",
+                lazy: page(() => import("./routes/site-edit-route"), "SiteEditRoute"),
+              },
               { path: "board", element: <BoardRoute /> },
               { path: "sites/:siteId", element: <SiteBoardRoute /> },
-              { path: "sites/:siteId/entries/new/:kind", element: <EntryNewRoute /> },
-              { path: "entries/:entryId", element: <EntryRoute /> },
-              { path: "sites/:siteId/import", element: <EntryImportRoute /> },
-              { path: "sites/:siteId/temperatures", element: <TemperaturesRoute /> },
-              { path: "checklists/:runId", element: <ChecklistRunRoute /> },
-              { path: "sites/:siteId/levelling", element: <LevellingRoute /> },
-              { path: "levelling/:sectionId", element: <LevellingSectionRoute /> },
-              { path: "members", element: <MembersRoute /> },
-              { path: "checklist-templates", element: <ChecklistTemplatesRoute /> },
-              { path: "conflicts", element: <ConflictsRoute /> },
-              { path: "map", element: <MapRoute /> },
-              { path: "crates/:crateId/label", element: <CrateLabelRoute /> },
-              { path: "crates", element: <CratesRoute /> },
-              { path: "crates/hand-over", element: <HandoverRoute /> },
-              { path: "crates/handovers/:handoverId", element: <HandoverRecordRoute /> },
-              { path: "crates/alerts", element: <AlertsRoute /> },
-              { path: "crates/:crateId", element: <CrateRoute /> },
-              { path: "logistics", element: <LogisticsDashboardRoute /> },
-              { path: "heights", element: <HeightsRoute /> },
-              { path: "heights/benchmarks", element: <BenchmarksRoute /> },
-              { path: "heights/instruments", element: <InstrumentsRoute /> },
-              { path: "heights/instruments/:instrumentId", element: <InstrumentRoute /> },
-              { path: "heights/network", element: <HeightNetworkRoute /> },
-              { path: "heights/runs/new", element: <RunNewRoute /> },
-              { path: "heights/runs/:runId", element: <RunRoute /> },
-              { path: "heights/runs/:runId/edit", element: <RunEditRoute /> },
-              { path: "review", element: <ReviewRoute /> },
-              { path: "review/:kind/:recordId", element: <ReviewRecordRoute /> },
-              { path: "exports", element: <ExportsRoute /> },
-              { path: "report", element: <ReportRoute /> },
+              {
+                path: "sites/:siteId/entries/new/:kind",
+                lazy: page(() => import("./routes/entry-new-route"), "EntryNewRoute"),
+              },
+              {
+                path: "entries/:entryId",
+                lazy: page(() => import("./routes/entry-route"), "EntryRoute"),
+              },
+              {
+                path: "sites/:siteId/import",
+                lazy: page(() => import("./routes/entry-import-route"), "EntryImportRoute"),
+              },
+              {
+                path: "sites/:siteId/temperatures",
+                lazy: page(() => import("./routes/temperatures-route"), "TemperaturesRoute"),
+              },
+              {
+                path: "checklists/:runId",
+                lazy: page(() => import("./routes/checklist-run-route"), "ChecklistRunRoute"),
+              },
+              {
+                path: "sites/:siteId/levelling",
+                lazy: page(() => import("./routes/levelling-route"), "LevellingRoute"),
+              },
+              {
+                path: "levelling/:sectionId",
+                lazy: page(
+                  () => import("./routes/levelling-section-route"),
+                  "LevellingSectionRoute",
+                ),
+              },
+              {
+                path: "members",
+                lazy: page(() => import("./routes/members-route"), "MembersRoute"),
+              },
+              {
+                path: "checklist-templates",
+                lazy: page(
+                  () => import("./routes/checklist-templates-route"),
+                  "ChecklistTemplatesRoute",
+                ),
+              },
+              {
+                path: "conflicts",
+                lazy: page(() => import("./routes/conflicts-route"), "ConflictsRoute"),
+              },
+              { path: "map", lazy: page(() => import("./routes/map-route"), "MapRoute") },
+              {
+                path: "crates/:crateId/label",
+                lazy: page(() => import("./routes/crate-label-route"), "CrateLabelRoute"),
+              },
+              { path: "crates", lazy: page(() => import("./routes/crates-route"), "CratesRoute") },
+              {
+                path: "crates/hand-over",
+                lazy: page(() => import("./routes/handover-route"), "HandoverRoute"),
+              },
+              {
+                path: "crates/handovers/:handoverId",
+                lazy: page(() => import("./routes/handover-route"), "HandoverRecordRoute"),
+              },
+              {
+                path: "crates/alerts",
+                lazy: page(() => import("./routes/alerts-route"), "AlertsRoute"),
+              },
+              {
+                path: "crates/:crateId",
+                lazy: page(() => import("./routes/crate-route"), "CrateRoute"),
+              },
+              {
+                path: "logistics",
+                lazy: page(
+                  () => import("./routes/logistics-dashboard-route"),
+                  "LogisticsDashboardRoute",
+                ),
+              },
+              {
+                path: "heights",
+                lazy: page(() => import("./routes/heights-route"), "HeightsRoute"),
+              },
+              {
+                path: "heights/benchmarks",
+                lazy: page(() => import("./routes/benchmarks-route"), "BenchmarksRoute"),
+              },
+              {
+                path: "heights/instruments",
+                lazy: page(() => import("./routes/instruments-route"), "InstrumentsRoute"),
+              },
+              {
+                path: "heights/instruments/:instrumentId",
+                lazy: page(() => import("./routes/instruments-route"), "InstrumentRoute"),
+              },
+              {
+                path: "heights/network",
+                lazy: page(() => import("./routes/height-network-route"), "HeightNetworkRoute"),
+              },
+              {
+                path: "heights/runs/new",
+                lazy: page(() => import("./routes/run-form-route"), "RunNewRoute"),
+              },
+              {
+                path: "heights/runs/:runId",
+                lazy: page(() => import("./routes/run-route"), "RunRoute"),
+              },
+              {
+                path: "heights/runs/:runId/edit",
+                lazy: page(() => import("./routes/run-form-route"), "RunEditRoute"),
+              },
+              { path: "review", lazy: page(() => import("./routes/review-route"), "ReviewRoute") },
+              {
+                path: "review/:kind/:recordId",
+                lazy: page(() => import("./routes/review-route"), "ReviewRecordRoute"),
+              },
+              {
+                path: "exports",
+                lazy: page(() => import("./routes/exports-route"), "ExportsRoute"),
+              },
+              { path: "report", lazy: page(() => import("./routes/report-route"), "ReportRoute") },
             ],
           },
-          { path: "*", element: <NotFoundRoute /> },
+          {
+            path: "*",
+            lazy: page(() => import("./routes/not-found-route"), "NotFoundRoute"),
+          },
         ],
       },
     ],
   },
 ]);
+
+warmPagesWithoutWorker();

@@ -6,7 +6,6 @@ import { listOpenConflicts, listRecovery, listRefusedFiles, siteNames } from "..
 import { dismissRecovery, forgetRefusedFile } from "../../../db/recovery-store";
 import { resolveConflictLocally } from "../../../db/site-store";
 import { downloadBlob, downloadJson, exportFileName } from "../../../lib/download";
-import { zipUnsent } from "../zip-unsent";
 import { useLocalSync } from "../../../lib/sync-context";
 
 export interface CampaignReview {
@@ -58,6 +57,8 @@ export function useDownloads() {
         downloadJson(exportFileName("unsent-changes"), changes);
         return;
       }
+      // The ZIP library loads only when a ZIP is asked for: it stays out of the start-up code.
+      const { zipUnsent } = await import("../zip-unsent");
       const archive = zipUnsent(changes, files);
       downloadBlob(exportFileName("unsent-changes", new Date(), "zip"), archive);
     },
