@@ -1,15 +1,11 @@
-// A series file streamed into PostgreSQL: the body is read line by line (never held whole), each
-// good sample goes into the current chunk, and full chunks are written as float8[] rows as the file
-// arrives — all in one transaction, so a bad row, an overlap or a dropped connection leaves nothing.
-import { createInterface } from "node:readline";
+// A series file streamed into PostgreSQL: the body is read as bytes, line by line (never held
+// whole), each good sample goes into the current chunk, and full chunks are written as float8[]
+// rows as the file arrives — all in one transaction, so a bad row, an overlap or a dropped
+// connection leaves nothing.
 import { Transform, type Readable } from "node:stream";
 import { sql } from "drizzle-orm";
 import type { z } from "zod";
-import {
-  createSeriesReader,
-  sameInterval,
-  type SeriesFileSummary,
-} from "../../../shared/comparison";
+import { sameInterval, type SeriesFileSummary } from "../../../shared/comparison";
 import {
   comparisonLimits,
   type ComparisonFileView,
@@ -27,13 +23,13 @@ import {
 import { comparisonRuns } from "../../db/schema";
 import { conflict, HttpError } from "../../http-errors";
 import type { Scope } from "../revision";
+import { chunkWriter, type ChunkWriter } from "./chunk-writer";
+import { createLineSplitter } from "./line-splitter";
 import { presentFile } from "./present";
 import { liveRun } from "./runs";
+import { createUploadReader, type UploadReader } from "./upload-reader";
 
 type UploadQuery = z.output<typeof seriesUploadQuery>;
-
-/** Samples per stored chunk: big enough that per-row overhead vanishes, small enough to stream. */
-export const CHUNK_SAMPLES = 65_536;
 
 export const fileEntity = "comparison-file";
 
@@ -68,39 +64,37 @@ function byteCounter(limit: number) {
   return { counter, bytes: () => bytes };
 }
 
-const pgArray = (values: ArrayLike<number>, length: number) => {
-  // JavaScript prints the shortest text that reads back as the same double: lossless.
-  const parts = new Array<string>(length);
-  for (let i = 0; i < length; i++) {
-    const v = values[i] ?? NaN;
-    parts[i] = Number.isNaN(v) ? "NaN" : String(v);
-  }
-  return `{${parts.join(",")}}`;
-};
+/** Bytes handed to the line splitter at a time, so a huge chunk cannot queue many inserts. */
+const SLICE_BYTES = 1 << 20;
 
-function chunkWriter(tx: Tx, fileId: string) {
-  const times = new Float64Array(CHUNK_SAMPLES);
-  const values = new Float64Array(CHUNK_SAMPLES);
-  let fill = 0;
-  let chunkNo = 0;
-  return {
-    add(t: number, y: number) {
-      times[fill] = t;
-      values[fill] = y;
-      fill++;
-    },
-    get full() {
-      return fill === CHUNK_SAMPLES;
-    },
-    async flush() {
-      if (fill === 0) return;
-      await tx.execute(sql`
-        insert into comparison_chunks (file_id, chunk_no, times, values)
-        values (${fileId}, ${chunkNo}, ${pgArray(times, fill)}::float8[], ${pgArray(values, fill)}::float8[])`);
-      chunkNo++;
-      fill = 0;
-    },
-  };
+/** Reads the whole body into the reader and writer; true when it holds too many rows. */
+async function readBody(
+  input: Readable,
+  reader: UploadReader,
+  writer: ChunkWriter,
+): Promise<boolean> {
+  let tooMany = false;
+  const splitter = createLineSplitter((buf, start, end, lineNo) => {
+    reader.line(buf, start, end, lineNo);
+    if (writer.full) {
+      if (reader.failed) throw new Error("unreachable: a failed reader hands on no sample");
+      writer.send();
+    }
+    if (lineNo > comparisonLimits.rowsMax + 1) {
+      tooMany = true;
+      splitter.stop();
+    }
+  });
+  for await (const chunk of input as AsyncIterable<Buffer>) {
+    for (let at = 0; at < chunk.length && !tooMany; at += SLICE_BYTES) {
+      splitter.push(chunk.subarray(at, at + SLICE_BYTES));
+      // One insert may stay in flight while the next chunk is parsed.
+      await writer.settle(1);
+    }
+    if (tooMany) return true;
+  }
+  splitter.end();
+  return false;
 }
 
 function refusal(summary: SeriesFileSummary, rowsTooMany: boolean): Refused | null {
@@ -194,35 +188,30 @@ export async function uploadSeries(
         })
       ).id;
       const writer = chunkWriter(tx, fileId);
-      const reader = createSeriesReader({
+      const reader = createUploadReader({
         valueKind: query.valueKind,
         ...(query.nominalRatio !== undefined ? { nominalRatio: query.nominalRatio } : {}),
         onSample: (t, y) => writer.add(t, y),
       });
       const { counter, bytes } = byteCounter(comparisonLimits.fileBytesMax);
       body.on("error", (e) => counter.destroy(e));
-      const lines = createInterface({ input: body.pipe(counter), crlfDelay: Infinity });
-      let lineNo = 0;
-      let tooMany = false;
-      for await (const raw of lines) {
-        lineNo++;
-        const text = lineNo === 1 ? raw.replace(/^\uFEFF/, "") : raw;
-        reader.line(text, lineNo);
-        if (writer.full) {
-          if (reader.failed) throw new Error("unreachable: a failed reader hands on no sample");
-          await writer.flush();
-        }
-        if (lineNo > comparisonLimits.rowsMax + 1) {
-          tooMany = true;
-          lines.close();
-          body.resume(); // let the rest drain so the answer reaches the client
-          break;
-        }
+      const tooMany = await readBody(body.pipe(counter), reader, writer).catch(async (e) => {
+        // A chunk still on its way would otherwise reach the connection after the rollback.
+        await writer.idle();
+        throw e;
+      });
+      if (tooMany) {
+        body.unpipe(counter);
+        body.resume(); // let the rest drain so the answer reaches the client
       }
       const summary = reader.finish();
       const refused = refusal(summary, tooMany);
-      if (refused !== null) throw refused;
-      await writer.flush();
+      if (refused !== null) {
+        await writer.idle();
+        throw refused;
+      }
+      writer.send();
+      await writer.settle(0);
       await refuseClash(tx, scope, runId, fileId, summary);
       await updateFile(tx, fileId, {
         byteSize: bytes(),
