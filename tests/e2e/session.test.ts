@@ -38,8 +38,11 @@ test("two tabs renewing the session at once both stay signed in", async () => {
     await route.continue();
   });
   for (let round = 0; round < 3; round += 1) {
-    // A reload forgets the in-memory access token: both tabs renew it at the same moment.
-    await Promise.all([first.reload(), second.reload()]);
+    // A reload forgets the in-memory access token: both tabs renew it at the same moment. Each
+    // round waits for both renewals (pages load lazily, so a heading can show before the renewal).
+    const renewed = (page: typeof first) =>
+      page.waitForResponse((r) => r.url().endsWith("/api/auth/refresh"), { timeout: 20_000 });
+    await Promise.all([renewed(first), renewed(second), first.reload(), second.reload()]);
     for (const page of [first, second]) {
       await page.getByRole("heading", { name: "Sites", exact: true }).waitFor();
       await waitForSyncStatus(page, "All changes sent");

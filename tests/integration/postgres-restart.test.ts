@@ -58,11 +58,17 @@ beforeAll(async () => {
   });
 }, 120_000);
 afterAll(async () => {
-  await database?.close().catch(() => undefined);
+  // Bounded: a pool whose connections died with the server must not hold the run up.
+  const closed = database?.close().then(
+    () => true,
+    () => true,
+  );
+  const inTime = await Promise.race([closed, new Promise((r) => setTimeout(() => r(false), 5000))]);
+  if (inTime === false) console.error("postgres-restart: the pool did not close within 5 s");
   stopCluster(cluster.dataDir);
   rmSync(cluster.dataDir, { recursive: true, force: true });
   rmSync(`${cluster.dataDir}.password`, { force: true });
-});
+}, 120_000);
 
 interface Tablet {
   client: TestSyncClient;
