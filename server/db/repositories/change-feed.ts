@@ -7,7 +7,7 @@
 import { getTableColumns, getTableName, type Column } from "drizzle-orm";
 import type { PgColumn, PgTable } from "drizzle-orm/pg-core";
 import type { Db } from "../client";
-import { syncClients, users } from "../schema";
+import { memberships, syncClients, users } from "../schema";
 
 /** One synced table: what the pull calls its rows, and the user whose name rides along. */
 export interface FeedTable {
@@ -28,6 +28,8 @@ export interface FeedPage {
   readonly rows: FeedRow[];
   /** The device's owner and last applied mutation, read in the same snapshot. */
   readonly client: { userId: string; lastMutationId: number } | null;
+  /** Whether the reader is a member of the campaign (the rows must not be used otherwise). */
+  readonly member: boolean;
 }
 
 type Mapper = (json: Record<string, unknown>) => Record<string, unknown>;
@@ -75,13 +77,17 @@ function branch(source: FeedTable): string {
 export function changeFeed(sources: readonly FeedTable[]) {
   const mappers = new Map(sources.map((s) => [s.entity, mapperOf(s)]));
   const clients = q(getTableName(syncClients));
-  // $4 may be null (no device named): the last branch then finds nothing.
+  const members = q(getTableName(memberships));
+  // $4 may be null (no device named): the device branch then finds nothing. The membership of
+  // reader $5 comes in the same statement, saving the round trip of a check before it.
   const text =
     `(select entity, seq::float8 as seq, row from (${sources.map(branch).join(" union all ")})` +
     ` page order by seq limit $3)` +
     ` union all (select '$client', 0, jsonb_build_object('userId', ${q(syncClients.userId.name)},` +
     ` 'lastMutationId', ${q(syncClients.lastMutationId.name)}) from ${clients}` +
-    ` where ${q(syncClients.id.name)} = $4::uuid)`;
+    ` where ${q(syncClients.id.name)} = $4::uuid)` +
+    ` union all (select '$member', 0, '{}'::jsonb from ${members}` +
+    ` where ${q(memberships.campaignId.name)} = $1 and ${q(memberships.userId.name)} = $5::uuid)`;
   // The name changes with the text, so a changed schema never runs a stale prepared statement.
   const name = `change-feed-${hash(text)}`;
 
@@ -91,15 +97,21 @@ export function changeFeed(sources: readonly FeedTable[]) {
     cursor: number,
     limit: number,
     clientId: string | null,
+    readerId: string,
   ): Promise<FeedPage> {
     const result = await db.$client.query<{
       entity: string;
       seq: number;
       row: Record<string, unknown>;
-    }>({ name, text, values: [campaignId, cursor, limit, clientId] });
+    }>({ name, text, values: [campaignId, cursor, limit, clientId, readerId] });
     const rows: FeedRow[] = [];
     let client: FeedPage["client"] = null;
+    let member = false;
     for (const r of result.rows) {
+      if (r.entity === "$member") {
+        member = true;
+        continue;
+      }
       if (r.entity === "$client") {
         client = r.row as { userId: string; lastMutationId: number };
         continue;
@@ -108,7 +120,7 @@ export function changeFeed(sources: readonly FeedTable[]) {
       if (!map) throw new Error(`the change feed returned an unknown entity ${r.entity}`);
       rows.push({ entity: r.entity, seq: r.seq, row: map(r.row) });
     }
-    return { rows, client };
+    return { rows, client, member };
   };
 }
 

@@ -1,9 +1,7 @@
 import { Router } from "express";
 import { pullQuery, pushRequest } from "../../../shared/sync/protocol";
 import type { Db } from "../../db/client";
-import { findMembership } from "../../db/repositories/users";
 import { requireAuth } from "../../middleware/authenticate";
-import { notFound } from "../../http-errors";
 import { parseInput } from "../../middleware/validate";
 import { pull } from "../../services/sync/pull";
 import { push } from "../../services/sync/push";
@@ -29,9 +27,8 @@ export function syncRouter(
 
   router.get("/pull", async (req, res) => {
     const query = parseInput(pullQuery, req.query);
-    const { userId } = requireAuth(req);
-    if (!(await findMembership(db, userId, query.campaign))) throw notFound("Campaign not found");
-    res.json(await pull(db, userId, query));
+    // Membership is checked by the pull's own statement (a non-member gets 404).
+    res.json(await pull(db, requireAuth(req).userId, query));
   });
   return router;
 }

@@ -22,7 +22,7 @@ import {
   levellingSetups,
   sites,
 } from "../../db/schema";
-import { forbidden } from "../../http-errors";
+import { forbidden, notFound } from "../../http-errors";
 import { presentAlert } from "../../presenters/alert";
 import { presentAttachmentLink } from "../../presenters/attachment-link";
 import { presentResult, presentRun, presentTemplate } from "../../presenters/checklist";
@@ -93,7 +93,9 @@ export async function pull(db: Db, userId: string, query: PullQuery): Promise<Pu
   assertProtocol(query.protocolVersion);
   const { campaign, cursor, limit } = query;
   // One row past the page, so "more" is known without a count; the device in the same snapshot.
-  const page = await readFeed(db, campaign, cursor, limit + 1, query.clientId ?? null);
+  const page = await readFeed(db, campaign, cursor, limit + 1, query.clientId ?? null, userId);
+  // Non-members learn nothing, not even whether the campaign exists.
+  if (!page.member) throw notFound("Campaign not found");
   const hasMore = page.rows.length > limit;
   const changes = page.rows.slice(0, limit).map((r) => {
     // The feed only returns the entities it was given, so the presenter is always there.
