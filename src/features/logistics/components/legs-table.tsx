@@ -6,36 +6,27 @@ import {
   getFilteredRowModel,
   getSortedRowModel,
   useReactTable,
-  type ColumnDef,
+  type Row,
   type SortingState,
 } from "@tanstack/react-table";
 import { useVirtualizer } from "@tanstack/react-virtual";
-import { useMemo, useRef, useState } from "react";
-import { Link } from "react-router-dom";
-import { legState, legStates, type LegState } from "../../../../shared/schemas/logistics";
-import type { LocalLeg } from "../../../db/database";
+import { memo, useMemo, useRef, useState } from "react";
+import { legStates, type LegState } from "../../../../shared/schemas/logistics";
 import { SelectField, TextField } from "../../../components/form-field";
-import { formatUtc } from "../../../lib/format";
 import { legStateWords } from "../format";
-import { LegStateWord } from "./status-word";
-
-export interface LegRow {
-  leg: LocalLeg;
-  crate: string;
-  from: string;
-  to: string;
-  state: LegState;
-  overdue: boolean;
-}
+import { columns, legColumns, type LegRow } from "./leg-columns";
 
 interface Props {
   rows: readonly LegRow[];
   crateHref: (crateId: string) => string;
 }
 
-const time = (iso: string | null) => (iso === null ? "—" : formatUtc(iso));
 const grid = "grid grid-cols-[7rem_1fr_1fr_9rem_11rem_11rem_11rem] gap-2 px-3";
 const rowHeight = 56;
+// A wheel step jumps about 27 rows, past any overscan: each extra row is only more to build and lay
+// out in that frame. A few cover small moves (arrow keys) that the compositor scrolls before the
+// page has drawn the rows coming into view.
+const overscan = 3;
 
 export function LegsTable({ rows, crateHref }: Props) {
   const [sorting, setSorting] = useState<SortingState>([{ id: "plannedArriveAt", desc: false }]);
@@ -44,54 +35,6 @@ export function LegsTable({ rows, crateHref }: Props) {
   const data = useMemo(
     () => rows.filter((r) => stateFilter === "" || r.state === stateFilter),
     [rows, stateFilter],
-  );
-  const columns = useMemo<ColumnDef<LegRow>[]>(
-    () => [
-      {
-        id: "crate",
-        header: "Crate",
-        accessorFn: (r) => r.crate,
-        cell: ({ row }) => (
-          <Link to={crateHref(row.original.leg.crateId)} className="font-semibold">
-            {row.original.crate}
-          </Link>
-        ),
-      },
-      { id: "from", header: "From", accessorFn: (r) => r.from },
-      { id: "to", header: "To", accessorFn: (r) => r.to },
-      {
-        id: "state",
-        header: "State",
-        accessorFn: (r) => legStates.indexOf(r.state),
-        cell: ({ row }) => (
-          <span className="flex flex-col">
-            <LegStateWord state={row.original.state} />
-            {row.original.overdue && (
-              <span className="text-sm font-semibold text-danger-ink">Overdue</span>
-            )}
-          </span>
-        ),
-      },
-      {
-        id: "plannedDepartAt",
-        header: "Planned departure",
-        accessorFn: (r) => r.leg.plannedDepartAt,
-        cell: ({ row }) => time(row.original.leg.plannedDepartAt),
-      },
-      {
-        id: "plannedArriveAt",
-        header: "Planned arrival",
-        accessorFn: (r) => r.leg.plannedArriveAt,
-        cell: ({ row }) => time(row.original.leg.plannedArriveAt),
-      },
-      {
-        id: "arrivedAt",
-        header: "Arrived",
-        accessorFn: (r) => r.leg.arrivedAt ?? "",
-        cell: ({ row }) => time(row.original.leg.arrivedAt),
-      },
-    ],
-    [crateHref],
   );
   // TanStack Table hands back fresh functions each render: this component is not memoised, on purpose.
   // eslint-disable-next-line react-hooks/incompatible-library
@@ -114,13 +57,6 @@ export function LegsTable({ rows, crateHref }: Props) {
     getFilteredRowModel: getFilteredRowModel(),
   });
   const shown = table.getRowModel().rows;
-  const scroller = useRef<HTMLDivElement>(null);
-  const virtual = useVirtualizer({
-    count: shown.length,
-    getScrollElement: () => scroller.current,
-    estimateSize: () => rowHeight,
-    overscan: 10,
-  });
 
   return (
     <div className="flex flex-col gap-3">
@@ -182,52 +118,76 @@ export function LegsTable({ rows, crateHref }: Props) {
             </div>
           ))}
         </div>
-        <div
-          ref={scroller}
-          role="rowgroup"
-          className="relative max-h-[32rem] min-w-[64rem] overflow-y-auto"
-          tabIndex={0}
-          aria-label="Legs, scrollable"
-        >
-          <div style={{ height: virtual.getTotalSize() }} className="relative">
-            {virtual.getVirtualItems().map((item) => {
-              const row = shown[item.index];
-              if (row === undefined) return null;
-              return (
-                <div
-                  role="row"
-                  aria-rowindex={item.index + 2}
-                  key={row.id}
-                  className={`${grid} absolute left-0 right-0 items-center border-b border-line tabular-nums`}
-                  style={{ top: item.start, height: rowHeight }}
-                >
-                  {row.getVisibleCells().map((cell) => (
-                    <div role="cell" key={cell.id} className="truncate">
-                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                    </div>
-                  ))}
-                </div>
-              );
-            })}
-          </div>
+        <LegsBody rows={shown} crateHref={crateHref} />
+      </div>
+    </div>
+  );
+}
+
+/**
+ * The scrolling rows, apart so that a scroll renders only them. The scroller has a definite height
+ * and `contain: strict`, so the new rows of a step are laid out and painted within it alone; the
+ * rows sit in normal flow under one offset box (fixed height, so no measuring), not one positioned
+ * box each.
+ */
+function LegsBody({ rows, crateHref }: { rows: Row<LegRow>[]; crateHref: Props["crateHref"] }) {
+  const scroller = useRef<HTMLDivElement>(null);
+  // Its fresh functions stay inside this component; rows get plain values.
+  // eslint-disable-next-line react-hooks/incompatible-library
+  const virtual = useVirtualizer({
+    count: rows.length,
+    getScrollElement: () => scroller.current,
+    estimateSize: () => rowHeight,
+    overscan,
+  });
+  const items = virtual.getVirtualItems();
+  const total = virtual.getTotalSize();
+  return (
+    <div
+      ref={scroller}
+      role="rowgroup"
+      className="min-w-[64rem] overflow-y-auto contain-strict"
+      style={{ height: `min(32rem, ${total}px)` }}
+      tabIndex={0}
+      aria-label="Legs, scrollable"
+    >
+      <div style={{ height: total }} className="relative">
+        <div className="absolute inset-x-0" style={{ top: items[0]?.start ?? 0 }}>
+          {items.map((item) => {
+            const row = rows[item.index];
+            if (row === undefined) return null;
+            return (
+              <LegsRow key={row.id} index={item.index} row={row.original} crateHref={crateHref} />
+            );
+          })}
         </div>
       </div>
     </div>
   );
 }
 
-export function legRows(
-  legs: readonly LocalLeg[],
-  crateLabel: (id: string) => string,
-  siteName: (id: string) => string,
-  overdue: ReadonlySet<string>,
-): LegRow[] {
-  return legs.map((leg) => ({
-    leg,
-    crate: crateLabel(leg.crateId),
-    from: siteName(leg.fromSiteId),
-    to: siteName(leg.toSiteId),
-    state: legState(leg),
-    overdue: overdue.has(leg.id),
-  }));
-}
+/** A row in view renders once, not again at every scroll step. */
+const LegsRow = memo(function LegsRow({
+  index,
+  row,
+  crateHref,
+}: {
+  index: number;
+  row: LegRow;
+  crateHref: Props["crateHref"];
+}) {
+  return (
+    <div
+      role="row"
+      aria-rowindex={index + 2}
+      className={`${grid} items-center border-b border-line tabular-nums`}
+      style={{ height: rowHeight }}
+    >
+      {legColumns.map((c) => (
+        <div role="cell" key={c.id} className="truncate">
+          {c.cell(row, crateHref)}
+        </div>
+      ))}
+    </div>
+  );
+});

@@ -6,7 +6,8 @@ import { crateStates } from "../../../../shared/schemas/logistics";
 import type { LocalAlert, LocalHandover, LocalLeg, LocalSite } from "../../../db/database";
 import { countByState, overdueLegs, pendingHandovers } from "../../../db/logistics-queries";
 import { StatusShape } from "../../../components/status-shape";
-import { legRows, LegsTable } from "./legs-table";
+import { useLegRows } from "./leg-columns";
+import { LegsTable } from "./legs-table";
 import { CrateStateWord } from "./status-word";
 import { TimeText } from "../../../components/local-time-field";
 
@@ -33,8 +34,7 @@ export function LogisticsDashboard(props: Props) {
     crates.find((c) => c.id === id)?.label ?? "Crate not on this device";
   const siteName = (id: string) =>
     sites.find((s) => s.id === id)?.name ?? "Site not on this device";
-  const overdueIds = new Set(overdue.map((l) => l.id));
-  const rows = legRows(legs, crateLabel, siteName, overdueIds);
+  const rows = useLegRows(legs, crates, sites, overdue.map((l) => l.id).join(" "));
   const legLine = (l: LocalLeg) =>
     `${crateLabel(l.crateId)}: ${siteName(l.fromSiteId)} → ${siteName(l.toSiteId)}`;
   return (
