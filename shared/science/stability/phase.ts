@@ -42,6 +42,11 @@ export function scanSamples(data: ArrayLike<number>, field: string): SampleScan 
  * (inside scanSamples the object literal after the loop made it deoptimise on every call).
  */
 function tally(values: Float64Array): { missing: number; total: number; infiniteAt: number } {
+  // The common case first: a finite plain sum means no NaN and no ±Infinity among the samples
+  // (either would make the sum NaN or infinite), with the same additions in the same order.
+  let sum = 0;
+  for (let i = 0; i < values.length; i++) sum += values[i] ?? 0;
+  if (Number.isFinite(sum)) return { missing: 0, total: sum, infiniteAt: -1 };
   let missing = 0;
   let total = 0;
   for (let i = 0; i < values.length; i++) {
