@@ -48,6 +48,26 @@ afterEach(() => {
 });
 
 describe("apiRequest", () => {
+  test.each([
+    ["a day fast", 86_400_000],
+    ["a day slow", -86_400_000],
+  ])(
+    "never reads the device clock for expiry: with it %s the token goes out as it is",
+    async (_label, offset) => {
+      vi.useFakeTimers({ toFake: ["Date"] });
+      vi.setSystemTime(Date.now() + offset);
+      try {
+        const calls = stubFetch(() => json(200, { ok: true }));
+        await apiRequest("/campaigns", { schema: answer });
+        // One call, no renewal first: the server's clock alone decides when a token has expired.
+        expect(calls.map((c) => c.url)).toEqual(["/api/campaigns"]);
+        expect(header(calls[0]?.init ?? {}, "Authorization")).toBe("Bearer token-1");
+      } finally {
+        vi.useRealTimers();
+      }
+    },
+  );
+
   test("sends the bearer token, the request header and same-origin credentials", async () => {
     const calls = stubFetch(() => json(200, { ok: true }));
     await expect(apiRequest("/campaigns", { schema: answer })).resolves.toEqual({ ok: true });
