@@ -53,9 +53,25 @@ export function refusedFileOf(error: unknown): RefusedFile | null {
   };
 }
 
+/** IndexedDB refused a write because the browser's storage for this app is used up. */
+export function isStorageFull(error: unknown): boolean {
+  // Dexie wraps the browser's DOMException as `inner`; either may carry the name.
+  let e = error as { name?: unknown; inner?: unknown } | undefined;
+  for (let depth = 0; e && depth < 3; depth++) {
+    if (e.name === "QuotaExceededError") return true;
+    e = e.inner as typeof e;
+  }
+  return false;
+}
+
+export const storageFullMessage =
+  "This tablet's storage for Equipot is full, so nothing was saved. What you typed is still here: " +
+  "send the waiting changes (Sync now) or free space on the tablet, then save again.";
+
 /** A message a person can read, whatever was thrown. */
 export function messageOf(error: unknown): string {
   if (error instanceof ApiError) return error.message;
+  if (isStorageFull(error)) return storageFullMessage;
   if (error instanceof Error && error.message) return error.message;
   return "Something went wrong.";
 }
