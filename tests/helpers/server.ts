@@ -16,9 +16,11 @@ export interface TestServer {
   stop: () => Promise<void>;
 }
 
-export async function startTestServer(options: { seed?: boolean } = {}): Promise<TestServer> {
+export async function startTestServer(
+  options: { seed?: boolean; staticDir?: string } = {},
+): Promise<TestServer> {
   // EQUIPOT_STATIC_DIR lets parallel work build the client into its own folder.
-  const staticDir = resolve(process.env.EQUIPOT_STATIC_DIR ?? "dist");
+  const staticDir = resolve(options.staticDir ?? process.env.EQUIPOT_STATIC_DIR ?? "dist");
   if (!existsSync(resolve(staticDir, "index.html"))) {
     throw new Error("dist/ is missing: run `npx vite build` first (npm test does it)");
   }

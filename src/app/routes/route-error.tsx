@@ -1,9 +1,22 @@
+import { useEffect, useState } from "react";
 import { isRouteErrorResponse, useRouteError } from "react-router-dom";
 import { messageOf } from "../../lib/api-error";
+import { reloadForStaleChunk, shouldReloadForStaleChunk } from "../../lib/stale-chunk";
 
 /** Never a blank screen: an unexpected error still shows where to go next. */
 export function RouteError() {
   const error = useRouteError();
+  // A page of an older version, removed by an update in another tab: reload onto the new one.
+  const [reloading] = useState(() => shouldReloadForStaleChunk(error));
+  useEffect(() => {
+    if (reloading) reloadForStaleChunk();
+  }, [reloading]);
+  if (reloading)
+    return (
+      <main className="mx-auto max-w-xl px-4 py-12" role="status">
+        <p>Equipot was updated: opening the new version…</p>
+      </main>
+    );
   const message = isRouteErrorResponse(error)
     ? `${error.status} ${error.statusText}`
     : messageOf(error);
