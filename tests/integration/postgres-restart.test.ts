@@ -3,7 +3,6 @@
 // mutations and retry, and afterwards every mutation is applied exactly once and pulled by all.
 // The test's own cluster, so that stopping it touches no other test.
 import { rmSync } from "node:fs";
-import { createServer } from "node:net";
 import { join } from "node:path";
 import pg from "pg";
 import { pino } from "pino";
@@ -15,6 +14,7 @@ import { applyMigrations, connect, type Database } from "../../server/db/client"
 import { seedDemo } from "../../server/seed/demo";
 import { signInAs } from "../helpers/app";
 import { testConfig } from "../helpers/config";
+import { freePort } from "../helpers/server-process";
 import { newSite, pullAll, pushAs, syncClient, type TestSyncClient } from "../helpers/sync";
 
 const TABLETS = 4;
@@ -25,14 +25,6 @@ let port: number;
 let database: Database;
 let app: Express;
 const dataDir = join(".equipot", `pg-restart-${process.pid}`);
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const s = createServer().listen(0, "127.0.0.1", () => {
-      const p = (s.address() as { port: number }).port;
-      s.close(() => resolve(p));
-    });
-  });
 
 // Durable, as in production: an immediate stop is a crash, and a commit the server acknowledged
 // must survive it (with synchronous_commit off it would not, and the tablet would be told to

@@ -1,46 +1,19 @@
 // The server process is killed (SIGKILL) while a comparison series streams in, after several of
 // its chunks were written inside the upload's transaction: nothing of the file is stored, and
 // after a restart the same upload, sent again, stores every sample once.
-import { spawn, type ChildProcess } from "node:child_process";
-import { createServer } from "node:net";
+import type { ChildProcess } from "node:child_process";
 import { count, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { comparisonChunks, comparisonFiles } from "../../server/db/schema";
 import { demoPassword, seedDemo } from "../../server/seed/demo";
 import { createTestDatabase, type TestDatabase } from "../helpers/db";
+import { freePort, startServerProcess } from "../helpers/server-process";
 import { seriesCsv, whiteFmSeries } from "../helpers/series";
 
 const ROWS = 400_000;
 
 let database: TestDatabase;
 let server: ChildProcess | undefined;
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const s = createServer().listen(0, "127.0.0.1", () => {
-      const port = (s.address() as { port: number }).port;
-      s.close(() => resolve(port));
-    });
-  });
-
-async function startServerProcess(port: number): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
-    env: {
-      ...process.env,
-      NODE_ENV: "test",
-      PORT: String(port),
-      DATABASE_URL: database.url,
-      JWT_SECRET: "upload-crash-secret-upload-crash-secret-01",
-      LOG_LEVEL: "silent",
-    },
-    stdio: ["ignore", "pipe", "inherit"],
-  });
-  await new Promise<void>((resolve, reject) => {
-    child.stdout?.on("data", (d: Buffer) => d.toString().includes("listening") && resolve());
-    child.once("exit", (code) => reject(new Error(`server exited early (${code})`)));
-  });
-  return child;
-}
 
 beforeAll(async () => {
   database = await createTestDatabase();
@@ -68,7 +41,7 @@ describe("server killed mid-upload", () => {
   it("keeps nothing of the file, and the upload sent again stores it whole", async () => {
     const port = await freePort();
     const base = `http://127.0.0.1:${port}`;
-    server = await startServerProcess(port);
+    server = await startServerProcess(database.url, port);
     const signIn = await fetch(`${base}/api/auth/sign-in`, {
       method: "POST",
       headers: { "content-type": "application/json", "x-equipot-request": "1" },
@@ -163,7 +136,7 @@ describe("server killed mid-upload", () => {
     expect(await inFlight).toBe("connection lost");
     expect(await stored(runId)).toEqual({ files: 0, chunks: 0 });
 
-    server = await startServerProcess(port);
+    server = await startServerProcess(database.url, port);
     const retry = await fetch(url, { method: "POST", headers, body: csv });
     expect(retry.status, await retry.clone().text()).toBe(201);
     const file = ((await retry.json()) as { file: { id: string; rowCount: number } }).file;

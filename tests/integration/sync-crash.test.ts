@@ -1,10 +1,10 @@
 // The server process is killed (SIGKILL) in the middle of a push; after a restart the client's
 // retry completes, with nothing lost and nothing applied twice.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { spawn, type ChildProcess } from "node:child_process";
-import { createServer } from "node:net";
+import type { ChildProcess } from "node:child_process";
 import { eq, sql } from "drizzle-orm";
 import { createTestDatabase, type TestDatabase } from "../helpers/db";
+import { freePort, startServerProcess } from "../helpers/server-process";
 import { newSite, syncClient } from "../helpers/sync";
 import { seedDemo, demoPassword } from "../../server/seed/demo";
 import { campaigns } from "../../server/db/schema";
@@ -12,33 +12,6 @@ import { protocolVersion } from "../../shared/sync/protocol";
 
 let database: TestDatabase;
 let server: ChildProcess | undefined;
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const s = createServer().listen(0, "127.0.0.1", () => {
-      const port = (s.address() as { port: number }).port;
-      s.close(() => resolve(port));
-    });
-  });
-
-async function startServerProcess(port: number): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ["--import", "tsx", "server/index.ts"], {
-    env: {
-      ...process.env,
-      NODE_ENV: "test",
-      PORT: String(port),
-      DATABASE_URL: database.url,
-      JWT_SECRET: "crash-test-secret-crash-test-secret-0123",
-      LOG_LEVEL: "silent",
-    },
-    stdio: ["ignore", "pipe", "inherit"],
-  });
-  await new Promise<void>((resolve, reject) => {
-    child.stdout?.on("data", (d: Buffer) => d.toString().includes("listening") && resolve());
-    child.once("exit", (code) => reject(new Error(`server exited early (${code})`)));
-  });
-  return child;
-}
 
 beforeAll(async () => {
   database = await createTestDatabase();
@@ -53,7 +26,7 @@ describe("server killed mid-push", () => {
   it("loses nothing and applies nothing twice when the client retries", async () => {
     const port = await freePort();
     const base = `http://127.0.0.1:${port}`;
-    server = await startServerProcess(port);
+    server = await startServerProcess(database.url, port);
     const signIn = await fetch(`${base}/api/auth/sign-in`, {
       method: "POST",
       headers: { "content-type": "application/json", "x-equipot-request": "1" },
@@ -83,7 +56,7 @@ describe("server killed mid-push", () => {
     await new Promise((r) => setTimeout(r, 60));
     server.kill("SIGKILL");
     const firstOutcome = await inFlight;
-    server = await startServerProcess(port);
+    server = await startServerProcess(database.url, port);
 
     const retry = await fetch(`${base}/api/sync/push`, { method: "POST", headers, body });
     expect(retry.status).toBe(200);
