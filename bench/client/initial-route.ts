@@ -27,13 +27,25 @@ const lazyChunk = /\/(maplibre|uplot|campaign-map|report-map|preview\.worker|zip
 // statistics, CSV, the legs table): the board is in the initial bundle.
 const otherPageChunk = /\/(forms|qr|stats|csv|table|[\w-]+-route)-[^/]*\.m?js$/;
 
-function recordScripts(page: Page, origin: string): Set<string> {
+/** Collects the paths of this origin's scripts the page requests until stop() is called. */
+function recordScripts(page: Page, origin: string): { paths: Set<string>; stop: () => void } {
   const paths = new Set<string>();
-  page.on("request", (request) => {
+  const onRequest = (request: { url: () => string }) => {
     const url = new URL(request.url());
     if (url.origin === origin && isScript(url.pathname)) paths.add(url.pathname);
-  });
-  return paths;
+  };
+  page.on("request", onRequest);
+  return { paths, stop: () => page.off("request", onRequest) };
+}
+
+/** The requested scripts gzipped, largest first, and those the pattern says must stay lazy. */
+function sized(buildDir: string, paths: Set<string>, mustStayLazy: (path: string) => boolean) {
+  const files = sizeFiles(buildDir, paths).sort((a, b) => b.gzipBytes - a.gzipBytes);
+  return {
+    files,
+    gzipBytes: files.reduce((sum, f) => sum + f.gzipBytes, 0),
+    lazyLoaded: files.map((f) => f.path).filter(mustStayLazy),
+  };
 }
 
 /** Signs in through the page, opens the site board, and leaves the tablet synced and SW-controlled. */
@@ -44,19 +56,18 @@ export async function measureInitialJs(
   demo: DemoCampaign,
 ): Promise<InitialJs> {
   const { page } = tablet;
-  const paths = recordScripts(page, new URL(baseUrl).origin);
-  await signInAs(page, baseUrl, "field");
-  await page.goto(boardUrl(baseUrl, demo.campaignId, demo.siteId));
-  await waitForBoard(page, demo.siteName);
-  await waitForSyncStatus(page, "All changes sent", 30_000);
-  await page.waitForLoadState("networkidle");
-  const files = sizeFiles(buildDir, paths).sort((a, b) => b.gzipBytes - a.gzipBytes);
+  const scripts = recordScripts(page, new URL(baseUrl).origin);
+  try {
+    await signInAs(page, baseUrl, "field");
+    await page.goto(boardUrl(baseUrl, demo.campaignId, demo.siteId));
+    await waitForBoard(page, demo.siteName);
+    await waitForSyncStatus(page, "All changes sent", 30_000);
+    await page.waitForLoadState("networkidle");
+  } finally {
+    scripts.stop();
+  }
   await waitForServiceWorker(page);
-  return {
-    files,
-    gzipBytes: files.reduce((sum, f) => sum + f.gzipBytes, 0),
-    lazyLoaded: files.map((f) => f.path).filter((p) => lazyChunk.test(p)),
-  };
+  return sized(buildDir, scripts.paths, (p) => lazyChunk.test(p));
 }
 
 /**
@@ -70,27 +81,16 @@ export async function measureBoardStartJs(
   demo: DemoCampaign,
 ): Promise<InitialJs> {
   const { page } = tablet;
-  const origin = new URL(baseUrl).origin;
-  const paths = new Set<string>();
-  const onRequest = (request: { url: () => string }) => {
-    const url = new URL(request.url());
-    if (url.origin === origin && isScript(url.pathname)) paths.add(url.pathname);
-  };
   await waitForServiceWorker(page);
-  page.on("request", onRequest);
+  const scripts = recordScripts(page, new URL(baseUrl).origin);
   try {
     await page.goto(boardUrl(baseUrl, demo.campaignId, demo.siteId));
     await waitForBoard(page, demo.siteName);
     await page.waitForLoadState("networkidle");
   } finally {
-    page.off("request", onRequest);
+    scripts.stop();
   }
-  const files = sizeFiles(buildDir, paths).sort((a, b) => b.gzipBytes - a.gzipBytes);
-  return {
-    files,
-    gzipBytes: files.reduce((sum, f) => sum + f.gzipBytes, 0),
-    lazyLoaded: files.map((f) => f.path).filter((p) => lazyChunk.test(p) || otherPageChunk.test(p)),
-  };
+  return sized(buildDir, scripts.paths, (p) => lazyChunk.test(p) || otherPageChunk.test(p));
 }
 
 export interface BoardLcp {

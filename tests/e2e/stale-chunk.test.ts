@@ -2,12 +2,11 @@
 // files): Chromium's failed import makes the tab reload once, and when the file is still missing
 // the error page says so instead of reloading again. Service workers are blocked here, so the
 // request reaches the server (with a worker, the old files would still be served from its cache).
-import { cpSync, mkdtempSync, readdirSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join, resolve } from "node:path";
+import { readdirSync, rmSync } from "node:fs";
+import { join } from "node:path";
 import { afterAll, beforeAll, expect, test } from "vitest";
 import { launchProfile, screenshotOnFailure, viewports, type Profile } from "../helpers/browser";
-import { startTestServer, type TestServer } from "../helpers/server";
+import { copyOfBuiltClient, startTestServer, type TestServer } from "../helpers/server";
 import { openDemoSites } from "./flows";
 
 let server: TestServer;
@@ -15,8 +14,7 @@ let profile: Profile;
 let staticDir: string;
 
 beforeAll(async () => {
-  staticDir = mkdtempSync(join(tmpdir(), "equipot-stale-"));
-  cpSync(resolve(process.env.EQUIPOT_STATIC_DIR ?? "dist"), staticDir, { recursive: true });
+  staticDir = copyOfBuiltClient();
   // The map page's chunk is gone, as if a newer version had replaced it.
   const assets = join(staticDir, "assets");
   const mapChunk = readdirSync(assets).find((f) => /^map-route-.*\.js$/.test(f));

@@ -2,9 +2,8 @@
 // still opens (its service worker serves the version it has), the change goes out once the
 // connection is back, and the new version is offered, never forced, and runs after "Reload now".
 // The deploy: the served folder's index.html changes and with it the worker's precache list.
-import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join, resolve } from "node:path";
+import { readFileSync, rmSync, writeFileSync } from "node:fs";
+import { join } from "node:path";
 import { afterAll, beforeAll, expect, test } from "vitest";
 import {
   launchProfile,
@@ -13,7 +12,7 @@ import {
   viewports,
   type Profile,
 } from "../helpers/browser";
-import { startTestServer, type TestServer } from "../helpers/server";
+import { copyOfBuiltClient, startTestServer, type TestServer } from "../helpers/server";
 import { editNotes, readyForOffline, serverSites, waitForSyncStatus } from "./flows";
 
 let server: TestServer;
@@ -21,8 +20,7 @@ let profile: Profile;
 let staticDir: string;
 
 beforeAll(async () => {
-  staticDir = mkdtempSync(join(tmpdir(), "equipot-update-"));
-  cpSync(resolve(process.env.EQUIPOT_STATIC_DIR ?? "dist"), staticDir, { recursive: true });
+  staticDir = copyOfBuiltClient();
   server = await startTestServer({ staticDir });
   profile = await launchProfile({ viewport: viewports.tabletPortrait });
 });

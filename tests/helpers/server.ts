@@ -1,7 +1,8 @@
 // A real server for end-to-end tests: a fresh database seeded with the demo campaign, the built
 // PWA from dist/, and a local SMTP catcher, on a random loopback port.
-import { existsSync } from "node:fs";
-import { resolve } from "node:path";
+import { cpSync, existsSync, mkdtempSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join, resolve } from "node:path";
 import { startMailCatcher, type MailCatcher } from "../../scripts/lib/mail-catcher";
 import { startServer } from "../../server/index";
 import { seedDemo } from "../../server/seed/demo";
@@ -16,11 +17,20 @@ export interface TestServer {
   stop: () => Promise<void>;
 }
 
+// EQUIPOT_STATIC_DIR lets parallel work build the client into its own folder.
+const builtClientDir = () => resolve(process.env.EQUIPOT_STATIC_DIR ?? "dist");
+
+/** A throw-away copy of the built client, for tests that change the files a server serves. */
+export function copyOfBuiltClient(): string {
+  const dir = mkdtempSync(join(tmpdir(), "equipot-client-"));
+  cpSync(builtClientDir(), dir, { recursive: true });
+  return dir;
+}
+
 export async function startTestServer(
   options: { seed?: boolean; staticDir?: string } = {},
 ): Promise<TestServer> {
-  // EQUIPOT_STATIC_DIR lets parallel work build the client into its own folder.
-  const staticDir = resolve(options.staticDir ?? process.env.EQUIPOT_STATIC_DIR ?? "dist");
+  const staticDir = resolve(options.staticDir ?? builtClientDir());
   if (!existsSync(resolve(staticDir, "index.html"))) {
     throw new Error("dist/ is missing: run `npx vite build` first (npm test does it)");
   }
