@@ -8,11 +8,13 @@ import { startMailCatcher, type MailCatcher } from "./lib/mail-catcher";
 import { ensureStateDir, persistentSecret } from "./lib/local-state";
 import { nodeBin, run } from "./lib/run";
 import { parseConfig } from "../server/config";
+import { ensureAppRole, urlAs } from "../server/db/app-role";
 import { applyMigrations, connect } from "../server/db/client";
 import { startServer, type RunningServer } from "../server/index";
 import { demoAccounts, demoPassword, seedDemo } from "../server/seed/demo";
 
 const stops: (() => Promise<void> | void)[] = [];
+const localAppRole = "equipot_app";
 
 async function ensureDatabase(cluster: Cluster, name: string): Promise<string> {
   const client = new pg.Client({ connectionString: cluster.adminUrl("postgres") });
@@ -23,13 +25,24 @@ async function ensureDatabase(cluster: Cluster, name: string): Promise<string> {
   return cluster.adminUrl(name);
 }
 
-async function databaseUrl(): Promise<string> {
-  if (process.env.DATABASE_URL) return process.env.DATABASE_URL;
+/** The owner's URL (migrations, seeding) and the application role's (the server's). */
+async function databaseUrls(): Promise<{ owner: string; app: string; appRole?: string }> {
+  if (process.env.DATABASE_URL) {
+    const app = process.env.DATABASE_URL;
+    return {
+      owner: process.env.DATABASE_OWNER_URL ?? app,
+      app,
+      appRole: process.env.DATABASE_APP_ROLE,
+    };
+  }
   const port = Number(process.env.EQUIPOT_PG_PORT ?? 54330);
   const cluster = startCluster({ dataDir: join(ensureStateDir(), "pg"), port, durable: true });
   if (cluster.startedHere) stops.push(() => cluster.stop());
   console.log(`PostgreSQL on 127.0.0.1:${port} (data in ${cluster.dataDir})`);
-  return ensureDatabase(cluster, "equipot");
+  const owner = await ensureDatabase(cluster, "equipot");
+  const password = persistentSecret("pg-app-password");
+  await ensureAppRole(cluster.adminUrl("postgres"), localAppRole, password);
+  return { owner, app: urlAs(owner, localAppRole, password), appRole: localAppRole };
 }
 
 async function mailUrl(): Promise<string> {
@@ -49,7 +62,7 @@ async function stopAll(): Promise<void> {
 }
 
 async function main(): Promise<RunningServer> {
-  const url = await databaseUrl();
+  const urls = await databaseUrls();
   if (process.env.EQUIPOT_SKIP_BUILD !== "1")
     run("Building the app", nodeBin, [
       "node_modules/vite/bin/vite.js",
@@ -57,17 +70,17 @@ async function main(): Promise<RunningServer> {
       "--logLevel",
       "warn",
     ]);
-  await applyMigrations(url);
+  await applyMigrations(urls.owner, urls.appRole);
   const production = process.env.NODE_ENV === "production";
   if (!production) {
-    const database = connect(url, 2);
+    const database = connect(urls.owner, 2);
     const seeded = await seedDemo(database.db, process.env.NODE_ENV ?? "development");
     await database.close();
     console.log(seeded ? "Demo campaign seeded." : "Existing data kept.");
   }
   const config = parseConfig({
     ...process.env,
-    DATABASE_URL: url,
+    DATABASE_URL: urls.app,
     JWT_SECRET: process.env.JWT_SECRET ?? persistentSecret("jwt-secret"),
     SMTP_URL: await mailUrl(),
     STATIC_DIR: process.env.STATIC_DIR ?? "dist",

@@ -3,6 +3,7 @@ import type { Server } from "node:http";
 import { pathToFileURL } from "node:url";
 import { createApp } from "./app";
 import { parseConfig, publicUrl, type Config } from "./config";
+import { privilegedRoleProblem } from "./db/app-role";
 import { connect } from "./db/client";
 import { createLogger } from "./logger";
 import { createMailWorker, type MailWorker } from "./mail/mail-worker";
@@ -21,6 +22,11 @@ export async function startServer(config: Config): Promise<RunningServer> {
   const storage = await createStorage(config);
   log.info({ driver: config.STORAGE_DRIVER }, "file storage ready");
   const database = connect(config.DATABASE_URL);
+  const problem = await privilegedRoleProblem(database.pool);
+  if (problem) {
+    await database.close();
+    throw new Error(problem);
+  }
   const mail = config.SMTP_URL
     ? createMailWorker(database.db, config.SMTP_URL, config.MAIL_FROM, log)
     : undefined;

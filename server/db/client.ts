@@ -3,6 +3,8 @@ import { migrate } from "drizzle-orm/node-postgres/migrator";
 import pg from "pg";
 import { fileURLToPath } from "node:url";
 import * as schema from "./schema";
+import { grantAppRole } from "./app-role";
+import { ScopedPool } from "./scoped-pool";
 
 /** The pool is reachable for the few statements drizzle does not build (change-feed.ts). */
 export type Db = NodePgDatabase<typeof schema> & { $client: pg.Pool };
@@ -16,7 +18,7 @@ export interface Database {
 }
 
 export function connect(url: string, max = 10): Database {
-  const pool = new pg.Pool({ connectionString: url, max, idleTimeoutMillis: 30_000 });
+  const pool = new ScopedPool({ connectionString: url, max, idleTimeoutMillis: 30_000 });
   // A dropped idle connection must not crash the process; the pool replaces it.
   pool.on("error", () => undefined);
   // Nor one dropped while checked out (a transaction's): the running query fails with the error,
@@ -28,11 +30,13 @@ export function connect(url: string, max = 10): Database {
 
 export const migrationsFolder = fileURLToPath(new URL("../../drizzle", import.meta.url));
 
-export async function applyMigrations(url: string): Promise<void> {
-  const database = connect(url, 1);
+/** Migrates as the tables' owner (`ownerUrl`), then grants the application's role its rights. */
+export async function applyMigrations(ownerUrl: string, appRole?: string): Promise<void> {
+  const database = connect(ownerUrl, 1);
   try {
     await migrate(database.db, { migrationsFolder });
   } finally {
     await database.close();
   }
+  if (appRole) await grantAppRole(ownerUrl, appRole);
 }

@@ -1,4 +1,5 @@
 import type { Request, RequestHandler } from "express";
+import { inScope } from "../db/scope";
 import { unauthenticated } from "../http-errors";
 import type { TokenService } from "../services/tokens";
 
@@ -9,7 +10,8 @@ export function authenticate(tokens: TokenService): RequestHandler {
     const claims = match?.[1] ? await tokens.verifyAccess(match[1]) : undefined;
     if (!claims) throw unauthenticated();
     req.auth = claims;
-    next();
+    // Row-level security: the person's own memberships until a campaign route narrows it.
+    inScope({ user: claims.userId, campaigns: "none" }, next);
   };
 }
 

@@ -3,6 +3,7 @@ import type { Request, RequestHandler } from "express";
 import { z } from "zod";
 import { can, type Action, type Role } from "../../shared/permissions";
 import type { Db } from "../db/client";
+import { inScope } from "../db/scope";
 import { findMembership } from "../db/repositories/users";
 import { forbidden, notFound } from "../http-errors";
 import { requireAuth } from "./authenticate";
@@ -17,7 +18,8 @@ export function campaignMember(db: Db): RequestHandler & { readonly campaignScop
     const membership = parsed.success ? await findMembership(db, userId, parsed.data) : undefined;
     if (!parsed.success || !membership) throw notFound("Campaign not found");
     req.membership = { campaignId: parsed.data, role: membership.role };
-    next();
+    // Row-level security: this campaign only, from here to the response.
+    inScope({ user: userId, campaigns: [parsed.data] }, next);
   };
   return Object.assign(member, { campaignScope: true as const });
 }

@@ -50,7 +50,21 @@ function lostConnection(err: unknown): boolean {
   return false;
 }
 
+/** The driver's SQLSTATE, under drizzle's wrapping. */
+function sqlState(err: unknown): string | undefined {
+  const cause = (err as { cause?: { code?: unknown } } | undefined)?.cause;
+  const code = (err as { code?: unknown } | undefined)?.code ?? cause?.code;
+  return typeof code === "string" ? code : undefined;
+}
+
+/**
+ * Row-level security refused a row the application's own checks let through: answered as a
+ * missing record, so nothing of another campaign shows, and logged as the bug it is.
+ */
+export const rowSecurityRefused = (err: unknown) => sqlState(err) === "42501";
+
 function fromDatabase(err: unknown): HttpError | undefined {
+  if (rowSecurityRefused(err)) return notFound("Not found");
   if (!lostConnection(err)) return undefined;
   return new HttpError(
     503,
@@ -68,6 +82,8 @@ export const apiNotFound: RequestHandler = (_req, _res, next) =>
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   const known = err instanceof HttpError ? err : (fromBodyParser(err) ?? fromDatabase(err));
   if (!known) req.log?.error({ err }, "unhandled error");
+  else if (rowSecurityRefused(err))
+    req.log?.error({ err }, "row-level security refused a statement");
   else if (known.status === 503) req.log?.warn({ err }, "database unreachable");
   const error = known ?? new HttpError(500, "internal", "Something went wrong on the server");
   for (const [name, value] of Object.entries(error.headers ?? {})) res.setHeader(name, value);

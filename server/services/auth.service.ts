@@ -10,6 +10,8 @@ import {
 } from "../db/repositories/refresh-tokens";
 import { listCampaignsOfUser } from "../db/repositories/campaigns";
 import { findUserByEmail, findUserById } from "../db/repositories/users";
+import { withScope } from "../db/scope";
+import { scopeTransaction } from "../db/scoped-pool";
 import { unauthenticated } from "../http-errors";
 import { verifyAgainstDummy, verifyPassword } from "./passwords";
 import { assertNotThrottled, recordSignInFailure, recordSignInSuccess } from "./throttle";
@@ -70,7 +72,9 @@ export async function signIn(deps: AuthDeps, email: string, password: string, ad
     throw unauthenticated(wrongCredentials);
   }
   await recordSignInSuccess(deps.db, email);
-  return issue(deps, deps.db, user.id, randomUUID());
+  return withScope({ user: user.id, campaigns: "none" }, () =>
+    issue(deps, deps.db, user.id, randomUUID()),
+  );
 }
 
 export const issueNewSession = (deps: AuthDeps, q: Queryable, userId: string) =>
@@ -89,6 +93,7 @@ export async function refresh(deps: AuthDeps, refreshToken: string): Promise<Iss
     }
     if (row.expiresAt.getTime() <= Date.now()) return { kind: "refused" };
     await markRotated(tx, row.id);
+    await scopeTransaction(tx, { user: row.userId, campaigns: "none" });
     return { kind: "ok", issued: await issue(deps, tx, row.userId, row.familyId) };
   });
   if (outcome.kind === "refused") throw unauthenticated("Your session has ended. Sign in again.");

@@ -14,6 +14,7 @@ import {
 } from "../db/repositories/campaigns";
 import { enqueueEmail } from "../db/repositories/outbox";
 import { findUserByEmail } from "../db/repositories/users";
+import { asSystem } from "../db/scope";
 import { users } from "../db/schema";
 import { notFound } from "../http-errors";
 import { issueNewSession, type AuthDeps } from "./auth.service";
@@ -67,31 +68,34 @@ export async function createInvite(
 
 export async function acceptInvite(deps: AuthDeps, input: AcceptInviteInput) {
   const passwordHash = await hashPassword(input.password);
-  return deps.db.transaction(async (tx) => {
-    const invite = await findOpenInviteForUpdate(tx, hashOpaqueToken(input.token));
-    if (!invite) throw notFound("This invite link is not valid any more. Ask for a new one.");
-    const existing = await findUserByEmail(tx, invite.email);
-    let userId = existing?.id;
-    if (existing) {
-      await tx.update(users).set({ passwordHash }).where(eq(users.id, existing.id));
-    } else {
-      const [created] = await tx
-        .insert(users)
-        .values({ email: invite.email, name: input.name, passwordHash })
-        .returning({ id: users.id });
-      userId = created?.id;
-    }
-    if (!userId) throw new Error("user was not created");
-    await upsertMembership(tx, invite.campaignId, userId, invite.role);
-    await markInviteAccepted(tx, invite.id);
-    await recordAudit(tx, {
-      campaignId: invite.campaignId,
-      userId,
-      action: "accept-invite",
-      entity: "membership",
-      entityId: userId,
-      after: { role: invite.role },
-    });
-    return issueNewSession(deps, tx, userId);
-  });
+  // The campaign is known only from the invite, and the person is not a member yet.
+  return asSystem("accepting an invitation", () =>
+    deps.db.transaction(async (tx) => {
+      const invite = await findOpenInviteForUpdate(tx, hashOpaqueToken(input.token));
+      if (!invite) throw notFound("This invite link is not valid any more. Ask for a new one.");
+      const existing = await findUserByEmail(tx, invite.email);
+      let userId = existing?.id;
+      if (existing) {
+        await tx.update(users).set({ passwordHash }).where(eq(users.id, existing.id));
+      } else {
+        const [created] = await tx
+          .insert(users)
+          .values({ email: invite.email, name: input.name, passwordHash })
+          .returning({ id: users.id });
+        userId = created?.id;
+      }
+      if (!userId) throw new Error("user was not created");
+      await upsertMembership(tx, invite.campaignId, userId, invite.role);
+      await markInviteAccepted(tx, invite.id);
+      await recordAudit(tx, {
+        campaignId: invite.campaignId,
+        userId,
+        action: "accept-invite",
+        entity: "membership",
+        entityId: userId,
+        after: { role: invite.role },
+      });
+      return issueNewSession(deps, tx, userId);
+    }),
+  );
 }

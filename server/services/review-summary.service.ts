@@ -4,6 +4,7 @@ import { and, eq, isNull, ne, or, sql } from "drizzle-orm";
 import { can } from "../../shared/permissions";
 import { reviewDecisionLabels, reviewDecisions } from "../../shared/schemas/reviews";
 import type { Db } from "../db/client";
+import { asSystem, withScope } from "../db/scope";
 import { enqueueEmailOnce } from "../db/repositories/outbox";
 import {
   campaigns,
@@ -69,46 +70,59 @@ async function decisionsSince(db: Db, campaignId: string, since: Date) {
 export async function queueWeeklySummaries(db: Db, now: Date, linkBase: string): Promise<number> {
   const week = isoWeek(now);
   let queued = 0;
-  for (const sub of await dueSubscriptions(db, week)) {
+  const due = await asSystem("finding the review summaries due", () => dueSubscriptions(db, week));
+  for (const sub of due) {
     if (!can(sub.role, "entry.review")) continue;
-    const waiting = (await reviewQueue(db, sub.campaignId, { show: "waiting" })).items.length;
-    const decided = await decisionsSince(
-      db,
-      sub.campaignId,
-      new Date(now.getTime() - 7 * 86_400_000),
-    );
-    const lines = reviewDecisions.map(
-      (d) => `  ${reviewDecisionLabels[d].padEnd(10)} ${decided.get(d) ?? 0}`,
-    );
-    await db.transaction(async (tx) => {
-      const fresh = await enqueueEmailOnce(tx, {
-        messageKey: `review-summary:${sub.campaignId}:${sub.userId}:${week}`,
-        toAddress: sub.email,
-        subject: `Equipot, ${sub.campaignName}: weekly review summary (${week})`,
-        textBody: [
-          `Hello ${sub.name},`,
-          "",
-          `Records waiting for review in "${sub.campaignName}": ${waiting}`,
-          "",
-          "Decisions in the last 7 days:",
-          ...lines,
-          "",
-          `${linkBase.replace(/\/$/, "")}/campaigns/${sub.campaignId}/review`,
-          "",
-          "You get this because you asked for it on the review page; you can turn it off there.",
-        ].join("\n"),
-      });
-      await tx
-        .update(reviewSummarySubscriptions)
-        .set({ lastWeek: week })
-        .where(
-          and(
-            eq(reviewSummarySubscriptions.campaignId, sub.campaignId),
-            eq(reviewSummarySubscriptions.userId, sub.userId),
-          ),
-        );
-      if (fresh) queued += 1;
-    });
+    // Each summary is read as its reader would see the campaign.
+    const scope = { user: sub.userId, campaigns: [sub.campaignId] };
+    if (await withScope(scope, () => queueSummary(db, sub, week, now, linkBase))) queued += 1;
   }
   return queued;
+}
+
+async function queueSummary(
+  db: Db,
+  sub: Awaited<ReturnType<typeof dueSubscriptions>>[number],
+  week: string,
+  now: Date,
+  linkBase: string,
+): Promise<boolean> {
+  const waiting = (await reviewQueue(db, sub.campaignId, { show: "waiting" })).items.length;
+  const decided = await decisionsSince(
+    db,
+    sub.campaignId,
+    new Date(now.getTime() - 7 * 86_400_000),
+  );
+  const lines = reviewDecisions.map(
+    (d) => `  ${reviewDecisionLabels[d].padEnd(10)} ${decided.get(d) ?? 0}`,
+  );
+  return db.transaction(async (tx) => {
+    const fresh = await enqueueEmailOnce(tx, {
+      messageKey: `review-summary:${sub.campaignId}:${sub.userId}:${week}`,
+      toAddress: sub.email,
+      subject: `Equipot, ${sub.campaignName}: weekly review summary (${week})`,
+      textBody: [
+        `Hello ${sub.name},`,
+        "",
+        `Records waiting for review in "${sub.campaignName}": ${waiting}`,
+        "",
+        "Decisions in the last 7 days:",
+        ...lines,
+        "",
+        `${linkBase.replace(/\/$/, "")}/campaigns/${sub.campaignId}/review`,
+        "",
+        "You get this because you asked for it on the review page; you can turn it off there.",
+      ].join("\n"),
+    });
+    await tx
+      .update(reviewSummarySubscriptions)
+      .set({ lastWeek: week })
+      .where(
+        and(
+          eq(reviewSummarySubscriptions.campaignId, sub.campaignId),
+          eq(reviewSummarySubscriptions.userId, sub.userId),
+        ),
+      );
+    return fresh;
+  });
 }

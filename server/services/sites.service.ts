@@ -5,7 +5,7 @@ import { nextChangeSeq } from "../db/change-seq";
 import { nextRevision, tombstoneRevision, type Scope } from "./revision";
 import { recordAudit } from "../db/repositories/audit";
 import {
-  findSiteAnywhere,
+  takenSiteIds,
   findSiteForUpdate,
   insertSite,
   listSites,
@@ -22,8 +22,8 @@ type CreateFields = Omit<SiteCreateInput, "notes"> & { notes: string };
 export async function createSite(db: Db, scope: Scope, input: CreateFields): Promise<SiteView> {
   return db.transaction(async (tx) => {
     const id = input.id ?? randomUUID();
-    const existing = await findSiteAnywhere(tx, id);
-    if (existing) throw conflict("A site with this id already exists");
+    if ((await takenSiteIds(tx, [id])).size > 0)
+      throw conflict("A site with this id already exists");
     const row = await insertSite(tx, {
       ...input,
       id,

@@ -4,6 +4,7 @@ import request from "supertest";
 import type { Express } from "express";
 import type { Role } from "../../shared/permissions";
 import { createApp } from "../../server/app";
+import { connect } from "../../server/db/client";
 import { createSciencePool, type SciencePool } from "../../server/workers/science-pool";
 import { memberships, users } from "../../server/db/schema";
 import { hashPassword } from "../../server/services/passwords";
@@ -30,15 +31,18 @@ export async function createTestContext(
   const config = testConfig({ DATABASE_URL: database.url, ...overrides });
   const mailQueued = { count: 0 };
   const science = createSciencePool(1);
+  // The app runs as the application's role, under row-level security; fixtures use database.db.
+  const appDatabase = connect(database.url);
   const app = createApp({
     config,
-    db: database.db,
+    db: appDatabase.db,
     log: pino({ level: "silent" }),
     onMailQueued: () => (mailQueued.count += 1),
     science,
   });
   const close = async () => {
     await science.close();
+    await appDatabase.close();
     await database.drop();
   };
   return { app, config, database, mailQueued, science, close };

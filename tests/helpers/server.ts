@@ -46,7 +46,7 @@ export async function startTestServer(
   const running = await startServer(config);
   return {
     baseUrl: running.url,
-    databaseUrl: database.url,
+    databaseUrl: database.ownerUrl,
     database,
     mail,
     stop: async () => {

@@ -6,12 +6,16 @@ import { existsSync, readdirSync, rmSync } from "node:fs";
 import { createServer } from "node:net";
 import { join } from "node:path";
 import { startCluster, stopCluster, type Cluster } from "../../scripts/lib/postgres";
+import { randomBytes } from "node:crypto";
+import { ensureAppRole } from "../../server/db/app-role";
 import { applyMigrations } from "../../server/db/client";
 import { templateDatabase, withDatabase } from "../helpers/admin-url";
 
 declare module "vitest" {
   export interface ProvidedContext {
     pgAdminUrl: string;
+    /** The application's role (no superuser, no BYPASSRLS, owns nothing) and its password. */
+    pgAppRole: { name: string; password: string };
   }
 }
 
@@ -72,8 +76,12 @@ export default async function setup(project: TestProject): Promise<() => void> {
   await client.query(`drop database if exists ${templateDatabase} with (force)`);
   await client.query(`create database ${templateDatabase}`);
   await client.end();
-  await applyMigrations(withDatabase(adminUrl, templateDatabase));
+  const appRole = { name: "equipot_test_app", password: randomBytes(18).toString("base64url") };
+  await ensureAppRole(adminUrl, appRole.name, appRole.password);
+  // Grants are copied with the template into every test database.
+  await applyMigrations(withDatabase(adminUrl, templateDatabase), appRole.name);
   project.provide("pgAdminUrl", adminUrl);
+  project.provide("pgAppRole", appRole);
   return () => {
     if (!cluster) return;
     cluster.stop();

@@ -2,19 +2,13 @@
 import { and, eq } from "drizzle-orm";
 import type { Queryable } from "../client";
 import { attachmentLinks } from "../schema";
+import { idTaken } from "./taken-ids";
 
 export type AttachmentLinkRow = typeof attachmentLinks.$inferSelect;
 export type NewAttachmentLinkRow = typeof attachmentLinks.$inferInsert;
 
 /** Any campaign: a client-made id that already exists anywhere is refused. */
-export const findAttachmentLinkAnywhere = async (q: Queryable, id: string) =>
-  (
-    await q
-      .select({ id: attachmentLinks.id })
-      .from(attachmentLinks)
-      .where(eq(attachmentLinks.id, id))
-      .limit(1)
-  )[0];
+export const attachmentLinkIdTaken = (q: Queryable, id: string) => idTaken(q, attachmentLinks, id);
 
 export const findAttachmentLinkForUpdate = async (q: Queryable, campaignId: string, id: string) =>
   (

@@ -1,5 +1,6 @@
 import { and, asc, eq, isNull, ne, sql } from "drizzle-orm";
 import type { Queryable } from "../client";
+import { idTaken } from "./taken-ids";
 import { benchmarks } from "../schema";
 
 export type BenchmarkRow = typeof benchmarks.$inferSelect;
@@ -24,9 +25,7 @@ export const findBenchmarkForUpdate = async (q: Queryable, campaignId: string, i
   )[0];
 
 /** Any campaign: a client-made id that already exists anywhere is refused. */
-export const benchmarkIdTaken = async (q: Queryable, id: string) =>
-  (await q.select({ id: benchmarks.id }).from(benchmarks).where(eq(benchmarks.id, id)).limit(1))
-    .length > 0;
+export const benchmarkIdTaken = (q: Queryable, id: string) => idTaken(q, benchmarks, id);
 
 /** A live benchmark of the campaign with this code (case ignored), other than `exceptId`. */
 export const findLiveBenchmarkByCode = async (

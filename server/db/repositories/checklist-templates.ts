@@ -1,6 +1,7 @@
 // Checklist templates as administrators edit them; every query is scoped by campaign.
 import { and, asc, eq, isNull } from "drizzle-orm";
 import type { Queryable } from "../client";
+import { idTaken } from "./taken-ids";
 import { checklistTemplates } from "../schema";
 import type { ChecklistTemplateRow } from "./checklists";
 
@@ -25,14 +26,7 @@ export const findTemplateForUpdate = async (q: Queryable, campaignId: string, id
   )[0];
 
 /** Any campaign: a client-made id that already exists anywhere is refused. */
-export const templateIdTaken = async (q: Queryable, id: string) =>
-  (
-    await q
-      .select({ id: checklistTemplates.id })
-      .from(checklistTemplates)
-      .where(eq(checklistTemplates.id, id))
-      .limit(1)
-  ).length > 0;
+export const templateIdTaken = (q: Queryable, id: string) => idTaken(q, checklistTemplates, id);
 
 export async function insertTemplate(
   q: Queryable,

@@ -1,6 +1,7 @@
 // Checklist templates, runs and results; every query is scoped by campaign.
 import { and, eq } from "drizzle-orm";
 import type { Queryable } from "../client";
+import { idTaken } from "./taken-ids";
 import { checklistResults, checklistRuns, checklistTemplates } from "../schema";
 
 export type ChecklistTemplateRow = typeof checklistTemplates.$inferSelect;
@@ -17,17 +18,9 @@ export const findTemplate = async (q: Queryable, campaignId: string, id: string)
   )[0];
 
 /** Any campaign: a client-made id that already exists anywhere is refused. */
-export const runIdTaken = async (q: Queryable, id: string) =>
-  (await q.select({ id: checklistRuns.id }).from(checklistRuns).where(eq(checklistRuns.id, id)))
-    .length > 0;
+export const runIdTaken = (q: Queryable, id: string) => idTaken(q, checklistRuns, id);
 
-export const resultIdTaken = async (q: Queryable, id: string) =>
-  (
-    await q
-      .select({ id: checklistResults.id })
-      .from(checklistResults)
-      .where(eq(checklistResults.id, id))
-  ).length > 0;
+export const resultIdTaken = (q: Queryable, id: string) => idTaken(q, checklistResults, id);
 
 export const findRunForUpdate = async (q: Queryable, campaignId: string, id: string) =>
   (

@@ -2,6 +2,7 @@
 // scoped by campaign.
 import { and, asc, desc, eq, getTableColumns, isNull, sql } from "drizzle-orm";
 import type { Queryable } from "../client";
+import { idTaken } from "./taken-ids";
 import {
   comparisonAnalyses,
   comparisonChunks,
@@ -36,9 +37,7 @@ export async function findRun(q: Queryable, campaignId: string, id: string, forU
   return row;
 }
 
-export const runIdTaken = async (q: Queryable, id: string) =>
-  (await q.select({ id: comparisonRuns.id }).from(comparisonRuns).where(eq(comparisonRuns.id, id)))
-    .length > 0;
+export const runIdTaken = (q: Queryable, id: string) => idTaken(q, comparisonRuns, id);
 
 export async function insertRun(q: Queryable, values: typeof comparisonRuns.$inferInsert) {
   const [row] = await q.insert(comparisonRuns).values(values).returning();

@@ -1,5 +1,6 @@
 import { and, asc, eq, isNull } from "drizzle-orm";
 import type { Queryable } from "../client";
+import { idTaken } from "./taken-ids";
 import { crates } from "../schema";
 
 export type CrateRow = typeof crates.$inferSelect;
@@ -33,8 +34,7 @@ export const findCrateForUpdate = async (q: Queryable, campaignId: string, id: s
   )[0];
 
 /** Any campaign: a client-made id that already exists anywhere is refused. */
-export const crateIdTaken = async (q: Queryable, id: string) =>
-  (await q.select({ id: crates.id }).from(crates).where(eq(crates.id, id)).limit(1)).length > 0;
+export const crateIdTaken = (q: Queryable, id: string) => idTaken(q, crates, id);
 
 export async function insertCrate(
   q: Queryable,

@@ -1,6 +1,7 @@
 // Field entries (append-only); every query is scoped by campaign except the id check.
 import { and, eq, getTableColumns, sql } from "drizzle-orm";
 import type { Queryable } from "../client";
+import { idTaken } from "./taken-ids";
 import { fieldEntries, users } from "../schema";
 
 export type FieldEntryRecord = typeof fieldEntries.$inferSelect;
@@ -10,9 +11,7 @@ export type FieldEntryRow = FieldEntryRecord & { recordedByName: string | null }
 const withAuthor = { ...getTableColumns(fieldEntries), recordedByName: users.name };
 
 /** Any campaign: a client-made id that already exists anywhere is refused. */
-export const entryIdTaken = async (q: Queryable, id: string) =>
-  (await q.select({ id: fieldEntries.id }).from(fieldEntries).where(eq(fieldEntries.id, id)))
-    .length > 0;
+export const entryIdTaken = (q: Queryable, id: string) => idTaken(q, fieldEntries, id);
 
 export const findEntry = async (
   q: Queryable,

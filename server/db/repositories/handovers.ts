@@ -2,6 +2,7 @@
 // check.
 import { and, desc, eq, getTableColumns } from "drizzle-orm";
 import type { Queryable } from "../client";
+import { idTaken } from "./taken-ids";
 import { handovers, users } from "../schema";
 
 export type HandoverRecord = typeof handovers.$inferSelect;
@@ -11,9 +12,7 @@ export type HandoverRow = HandoverRecord & { recordedByName: string | null };
 const withRecorder = { ...getTableColumns(handovers), recordedByName: users.name };
 
 /** Any campaign: a client-made id that already exists anywhere is refused. */
-export const handoverIdTaken = async (q: Queryable, id: string) =>
-  (await q.select({ id: handovers.id }).from(handovers).where(eq(handovers.id, id)).limit(1))
-    .length > 0;
+export const handoverIdTaken = (q: Queryable, id: string) => idTaken(q, handovers, id);
 
 export const findHandover = async (
   q: Queryable,

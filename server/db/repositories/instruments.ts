@@ -1,6 +1,7 @@
 // Instruments (clocks and links): queries only, always scoped by campaign.
 import { and, asc, eq, isNull } from "drizzle-orm";
 import type { Queryable } from "../client";
+import { idTaken } from "./taken-ids";
 import { auditEvents, instruments, users } from "../schema";
 
 export type InstrumentRow = typeof instruments.$inferSelect;
@@ -48,9 +49,7 @@ export const findInstrumentForUpdate = async (q: Queryable, campaignId: string, 
       .limit(1)
   )[0];
 
-export const instrumentIdTaken = async (q: Queryable, id: string) =>
-  (await q.select({ id: instruments.id }).from(instruments).where(eq(instruments.id, id)).limit(1))
-    .length > 0;
+export const instrumentIdTaken = (q: Queryable, id: string) => idTaken(q, instruments, id);
 
 export async function insertInstrument(q: Queryable, values: InstrumentInsert) {
   const [row] = await q.insert(instruments).values(values).returning();

@@ -2,13 +2,13 @@
 // campaign except the id check.
 import { and, eq } from "drizzle-orm";
 import type { Queryable } from "../client";
+import { idTaken } from "./taken-ids";
 import { legs } from "../schema";
 
 export type LegRow = typeof legs.$inferSelect;
 
 /** Any campaign: a client-made id that already exists anywhere is refused. */
-export const legIdTaken = async (q: Queryable, id: string) =>
-  (await q.select({ id: legs.id }).from(legs).where(eq(legs.id, id)).limit(1)).length > 0;
+export const legIdTaken = (q: Queryable, id: string) => idTaken(q, legs, id);
 
 export const findLeg = async (q: Queryable, campaignId: string, id: string) =>
   (

@@ -2,6 +2,7 @@
 // id checks.
 import { and, asc, eq, getTableColumns } from "drizzle-orm";
 import type { Queryable } from "../client";
+import { idTaken } from "./taken-ids";
 import { levellingSections, levellingSetups, users } from "../schema";
 
 export type LevellingSectionRow = typeof levellingSections.$inferSelect;
@@ -12,21 +13,9 @@ export type LevellingSetupRow = LevellingSetupRecord & { recordedByName: string 
 const setupWithAuthor = { ...getTableColumns(levellingSetups), recordedByName: users.name };
 
 /** Any campaign: a client-made id that already exists anywhere is refused. */
-export const sectionIdTaken = async (q: Queryable, id: string) =>
-  (
-    await q
-      .select({ id: levellingSections.id })
-      .from(levellingSections)
-      .where(eq(levellingSections.id, id))
-  ).length > 0;
+export const sectionIdTaken = (q: Queryable, id: string) => idTaken(q, levellingSections, id);
 
-export const setupIdTaken = async (q: Queryable, id: string) =>
-  (
-    await q
-      .select({ id: levellingSetups.id })
-      .from(levellingSetups)
-      .where(eq(levellingSetups.id, id))
-  ).length > 0;
+export const setupIdTaken = (q: Queryable, id: string) => idTaken(q, levellingSetups, id);
 
 export const findSection = async (q: Queryable, campaignId: string, id: string) =>
   (

@@ -1,5 +1,6 @@
 import { and, asc, eq, isNull, sql, type SQLWrapper } from "drizzle-orm";
 import type { Queryable } from "../client";
+import { takenIds } from "./taken-ids";
 import { poolDb, preparedOn } from "../prepared";
 import { sites } from "../schema";
 import { wellFormed } from "../storable";
@@ -34,7 +35,7 @@ export const findSiteForUpdate = async (q: Queryable, campaignId: string, id: st
       .limit(1)
   )[0];
 
-/** Any campaign: used to refuse a client-made id that already belongs elsewhere. */
+/** The site, in any campaign the scope shows: compare its campaign before trusting it. */
 export const findSiteAnywhere = async (q: Queryable, id: string) =>
   (
     await q
@@ -45,14 +46,7 @@ export const findSiteAnywhere = async (q: Queryable, id: string) =>
   )[0];
 
 /** Which of these ids already belong to a site, in any campaign (as PostgreSQL spells them). */
-export async function takenSiteIds(q: Queryable, ids: string[]): Promise<Set<string>> {
-  if (ids.length === 0) return new Set();
-  const rows = await q
-    .select({ id: sites.id })
-    .from(sites)
-    .where(sql`${sites.id} = any(${sql.param(ids)}::uuid[])`);
-  return new Set(rows.map((r) => r.id));
-}
+export const takenSiteIds = (q: Queryable, ids: string[]) => takenIds(q, sites, ids);
 
 export async function insertSite(q: Queryable, row: SiteInsert): Promise<SiteRow> {
   const [inserted] = await q.insert(sites).values(row).returning();

@@ -1,6 +1,8 @@
 import { Router } from "express";
 import { pullQuery, pushRequest } from "../../../shared/sync/protocol";
 import type { Db } from "../../db/client";
+import { memberCampaignIds } from "../../db/repositories/users";
+import { withScope } from "../../db/scope";
 import { requireAuth } from "../../middleware/authenticate";
 import { parseInput } from "../../middleware/validate";
 import { pull } from "../../services/sync/pull";
@@ -20,7 +22,12 @@ export function syncRouter(
   // Membership is checked per mutation inside the push (a removed member's changes are kept).
   router.post("/push", async (req, res) => {
     const input = parseInput(pushRequest, req.body);
-    const response = await push(db, requireAuth(req).userId, input, linkBase);
+    const { userId } = requireAuth(req);
+    // A push spans the person's campaigns; membership is still checked per mutation.
+    const campaigns = await memberCampaignIds(db, userId);
+    const response = await withScope({ user: userId, campaigns }, () =>
+      push(db, userId, input, linkBase),
+    );
     afterPush();
     res.json(response);
   });
@@ -28,7 +35,10 @@ export function syncRouter(
   router.get("/pull", async (req, res) => {
     const query = parseInput(pullQuery, req.query);
     // Membership is checked by the pull's own statement (a non-member gets 404).
-    res.json(await pull(db, requireAuth(req).userId, query));
+    const { userId } = requireAuth(req);
+    res.json(
+      await withScope({ user: userId, campaigns: [query.campaign] }, () => pull(db, userId, query)),
+    );
   });
   return router;
 }

@@ -19,6 +19,7 @@ import {
   insertRows,
   type ImportTable,
 } from "../../db/repositories/campaign-import";
+import { asSystem } from "../../db/scope";
 import { attachmentKey } from "../../storage/storage";
 import type { ExportDeps } from "./archive-build";
 import { checkAttachmentTypes, readArchive, refuse, type ReadArchive } from "./archive-read";
@@ -164,26 +165,29 @@ export async function importArchive(
   // campaign's id, so a refused import leaves nothing anyone can reach; they are removed anyway.
   const keys = await storeAttachments(deps, campaignId, read);
   try {
-    const counts = await deps.db.transaction(async (tx) => {
-      const description = archive.source.description;
-      await insertCampaignWithAdmin(tx, { id: campaignId, name, description }, userId);
-      const users = await existingUserIds(tx, userIdsIn(archive));
-      const ctx = {
-        ids: idMapOf(archive, campaignId),
-        users,
-        seq: await seqMapOf(tx, campaignId, archive),
-      };
-      const written = await writeTables(tx, campaignId, archive, ctx);
-      await recordAudit(tx, {
-        campaignId,
-        userId,
-        action: "import",
-        entity: "campaign",
-        entityId: campaignId,
-        after: { name, exportedAt: archive.exportedAt, source: archive.source, counts: written },
-      });
-      return written;
-    });
+    // The new campaign has no members until its first rows are in: system work.
+    const counts = await asSystem("importing an archive as a new campaign", () =>
+      deps.db.transaction(async (tx) => {
+        const description = archive.source.description;
+        await insertCampaignWithAdmin(tx, { id: campaignId, name, description }, userId);
+        const users = await existingUserIds(tx, userIdsIn(archive));
+        const ctx = {
+          ids: idMapOf(archive, campaignId),
+          users,
+          seq: await seqMapOf(tx, campaignId, archive),
+        };
+        const written = await writeTables(tx, campaignId, archive, ctx);
+        await recordAudit(tx, {
+          campaignId,
+          userId,
+          action: "import",
+          entity: "campaign",
+          entityId: campaignId,
+          after: { name, exportedAt: archive.exportedAt, source: archive.source, counts: written },
+        });
+        return written;
+      }),
+    );
     return { campaign: { id: campaignId, name, role: "admin" }, counts };
   } catch (err) {
     await Promise.all(keys.map((key) => deps.storage.delete(key).catch(() => undefined)));

@@ -3,7 +3,7 @@
 import type { AttachmentSubjectKind } from "../../../shared/schemas/attachments";
 import { nextChangeSeq } from "../../db/change-seq";
 import {
-  findAttachmentLinkAnywhere,
+  attachmentLinkIdTaken,
   findAttachmentLinkForUpdate,
   insertAttachmentLink,
   updateAttachmentLink,
@@ -42,7 +42,7 @@ export async function applyAttachmentAdd(
   ctx: ApplyContext,
   args: Args<"attachment.add">,
 ): Promise<ApplyOutcome> {
-  if (await findAttachmentLinkAnywhere(ctx.tx, args.id))
+  if (await attachmentLinkIdTaken(ctx.tx, args.id))
     throw new Rejection("An attachment with this id already exists");
   if (!(await subjectFinders[args.subject.kind](ctx, args.subject.id)))
     throw new Rejection(`The ${args.subject.kind} this file belongs to is not in this campaign`);
