@@ -19,8 +19,17 @@ export interface MailWorker {
   stop: () => Promise<void>;
 }
 
+export interface MailWorkerOptions {
+  /**
+   * The clock due times are read from and written with; without it the database's now() is used,
+   * as in production. Tests pass a simulated clock to step through hours in seconds.
+   */
+  now?: () => Date;
+}
+
 const batchSize = 20;
-const retryDelayS = (attempts: number) => Math.min(3600, 5 * 2 ** Math.min(attempts, 10));
+/** Seconds until the next attempt after `attempts` failed ones: doubling from 10 s, at most 1 h. */
+export const retryDelayS = (attempts: number) => Math.min(3600, 5 * 2 ** Math.min(attempts, 10));
 
 export function createMailWorker(
   db: Db,
@@ -28,6 +37,7 @@ export function createMailWorker(
   from: string,
   log: Logger,
   intervalMs = 5000,
+  options: MailWorkerOptions = {},
 ): MailWorker {
   const transport: Transporter = nodemailer.createTransport(smtpUrl);
   let running: Promise<number> | undefined;
@@ -36,7 +46,9 @@ export function createMailWorker(
   type Outcome = "none" | "sent" | "failed";
   const sendOne = (): Promise<Outcome> =>
     db.transaction(async (tx) => {
-      const [email] = await claimDueEmails(tx, 1);
+      // One reading per message: the claim and its outcome are stamped with the same instant.
+      const at = options.now?.();
+      const [email] = await claimDueEmails(tx, 1, at);
       if (!email) return "none";
       try {
         await transport.sendMail({
@@ -49,10 +61,10 @@ export function createMailWorker(
       } catch (error) {
         const attempts = email.attempts + 1;
         log.warn({ emailId: email.id, attempts, err: error }, "e-mail not sent, will retry");
-        await markEmailFailed(tx, email.id, attempts, String(error), retryDelayS(attempts));
+        await markEmailFailed(tx, email.id, attempts, String(error), retryDelayS(attempts), at);
         return "failed";
       }
-      await markEmailSent(tx, email.id);
+      await markEmailSent(tx, email.id, at);
       return "sent";
     });
 

@@ -28,25 +28,26 @@ export async function enqueueEmailOnce(
 /** The Message-ID of an outbox row: the same on every attempt, so a resend is recognisable. */
 export const outboxMessageId = (id: number) => `<outbox-${id}@equipot>`;
 
+/** The instant a due time is compared with: the database's now(), or the given clock reading. */
+const instant = (at: Date | undefined) => (at ? sql`${at.toISOString()}::timestamptz` : sql`now()`);
+
 /**
- * Claims due messages, locked until the caller's transaction ends; SKIP LOCKED lets several
- * workers (or instances) share the outbox without taking the same row.
+ * Claims messages due at `at` (default: the database's now()), locked until the caller's
+ * transaction ends; SKIP LOCKED lets several workers (or instances) share the outbox without
+ * taking the same row.
  */
-export async function claimDueEmails(q: Queryable, limit: number) {
+export async function claimDueEmails(q: Queryable, limit: number, at?: Date) {
   return q
     .select()
     .from(emailOutbox)
-    .where(sql`${emailOutbox.sentAt} is null and ${emailOutbox.nextAttemptAt} <= now()`)
+    .where(sql`${emailOutbox.sentAt} is null and ${emailOutbox.nextAttemptAt} <= ${instant(at)}`)
     .orderBy(emailOutbox.id)
     .limit(limit)
     .for("update", { skipLocked: true });
 }
 
-export async function markEmailSent(q: Queryable, id: number) {
-  await q
-    .update(emailOutbox)
-    .set({ sentAt: new Date(), lastError: null })
-    .where(eq(emailOutbox.id, id));
+export async function markEmailSent(q: Queryable, id: number, at = new Date()) {
+  await q.update(emailOutbox).set({ sentAt: at, lastError: null }).where(eq(emailOutbox.id, id));
 }
 
 export async function markEmailFailed(
@@ -55,13 +56,14 @@ export async function markEmailFailed(
   attempts: number,
   error: string,
   retryInS: number,
+  at?: Date,
 ) {
   await q
     .update(emailOutbox)
     .set({
       attempts,
       lastError: error.slice(0, 500),
-      nextAttemptAt: sql`now() + make_interval(secs => ${retryInS})`,
+      nextAttemptAt: sql`${instant(at)} + make_interval(secs => ${retryInS})`,
     })
     .where(eq(emailOutbox.id, id));
 }
