@@ -16,6 +16,58 @@ export const maxBenchmarkRows = 5000;
 /** The first problems are listed; the count says how many there were in all. */
 export const keptImportErrors = 200;
 
+/** Asks to save the file again: what a spreadsheet calls "CSV UTF-8" is what Equipot reads. */
+export const saveAsUtf8 = "save the file as UTF-8 and import again";
+
+/**
+ * Text that arrived from bytes which were not UTF-8. A decoder turns each such byte into U+FFFD;
+ * a UTF-16 file also brings NUL characters (and its byte-order mark, FF FE, as two U+FFFD). Each
+ * line with a bad byte is one error at that line; `fieldAt` names the column it lies in. Without
+ * it (GeoJSON, whose rows count features) the error is the file's and the message names the line.
+ */
+export function textEncodingErrors(
+  text: string,
+  fieldAt?: (line: string, index: number) => string,
+): ImportRowError[] {
+  if (text.includes("\u0000") || text.startsWith("\uFFFD\uFFFD")) {
+    const message = `The file is UTF-16 text (or not text); ${saveAsUtf8}`;
+    return [{ row: fieldAt ? 1 : 0, field: "file", message }];
+  }
+  if (!text.includes("\uFFFD")) return [];
+  const errors: ImportRowError[] = [];
+  text.split(/\r\n|\n|\r/).forEach((line, i) => {
+    const at = line.indexOf("\uFFFD");
+    if (at < 0) return;
+    const what = `not valid UTF-8 text at character ${at + 1}; ${saveAsUtf8}`;
+    errors.push(
+      fieldAt
+        ? { row: i + 1, field: fieldAt(line, at), message: `N${what.slice(1)}` }
+        : { row: 0, field: "file", message: `Line ${i + 1}: ${what}` },
+    );
+  });
+  return errors;
+}
+
+/** Where JSON.parse stopped, from its message (engines word it differently), or null. */
+export function jsonErrorAt(
+  text: string,
+  error: unknown,
+): { line: number; column: number; atEnd: boolean } | null {
+  const message = error instanceof Error ? error.message : "";
+  const lineColumn = /line (\d+) column (\d+)/.exec(message);
+  const position = /position (\d+)/.exec(message);
+  let at: number | null = null;
+  if (lineColumn) {
+    const lines = text.split(/\r\n|\n|\r/).slice(0, Number(lineColumn[1]) - 1);
+    at = lines.reduce((n, l) => n + l.length + 1, 0) + Number(lineColumn[2]) - 1;
+  } else if (position) at = Number(position[1]);
+  else if (/end of (JSON )?(input|data)/i.test(message)) at = text.length;
+  if (at === null) return null;
+  const before = text.slice(0, at).split(/\r\n|\n|\r/);
+  const column = (before.at(-1)?.length ?? 0) + 1;
+  return { line: before.length, column, atEnd: at >= text.trimEnd().length };
+}
+
 export const benchmarkColumns = [
   "code",
   "description",
@@ -145,6 +197,8 @@ const fatal = (errors: ImportRowError[]): ReadRows => ({ rows: [], errors, fatal
 interface CsvRecord {
   line: number;
   cells: string[];
+  /** A quote opened and never closed: the file was cut short, or a quote is stray. */
+  unclosed: boolean;
 }
 
 function readCsvRecords(text: string, delimiter: string): CsvRecord[] {
@@ -160,7 +214,8 @@ function readCsvRecords(text: string, delimiter: string): CsvRecord[] {
       start = results.meta.cursor;
       const cells = results.data;
       if (cells.every((c) => c.trim() === "")) return;
-      records.push({ line: lineOf(first), cells });
+      const unclosed = results.errors.some((e) => e.code === "MissingQuotes");
+      records.push({ line: lineOf(first), cells, unclosed });
     },
   });
   return records;
@@ -197,14 +252,28 @@ function rowsFromCsv(content: string): ReadRows {
   const problems = headerProblems(header);
   if (problems.length > 0) return fatal(problems);
   const known = new Set<string>(benchmarkColumns);
-  const rows = records.slice(1).map((record) => {
+  const read: ReadRows = { rows: [], errors: [], fatal: false };
+  // A last line without its line break and with too few columns: the file was cut short.
+  const last = records.at(-1);
+  const cutShort = last !== head && /[^\r\n]$/.test(text);
+  for (const record of records.slice(1)) {
+    if (record.unclosed) {
+      const message = "A quoted value is not closed (is the file complete?)";
+      read.errors.push({ row: record.line, field: "row", message });
+      continue;
+    }
+    if (record === last && cutShort && record.cells.length < header.length) {
+      const message = `The last line is cut short: ${record.cells.length} of ${header.length} columns (is the file complete?)`;
+      read.errors.push({ row: record.line, field: "row", message });
+      continue;
+    }
     const raw: RawRow = {};
     header.forEach((name, i) => {
       if (known.has(name)) raw[name as Column] = record.cells[i] ?? "";
     });
-    return { raw, row: record.line };
-  });
-  return { rows, errors: [], fatal: false };
+    read.rows.push({ raw, row: record.line });
+  }
+  return read;
 }
 
 const isRecord = (v: unknown): v is Record<string, unknown> =>
@@ -231,11 +300,19 @@ function featureToRow(feature: unknown, n: number): { raw: RawRow } | { error: I
 }
 
 function rowsFromGeoJson(content: string): ReadRows {
+  const text = content.replace(/^\uFEFF/, "");
   let data: unknown;
   try {
-    data = JSON.parse(content.replace(/^\uFEFF/, ""));
-  } catch {
-    return fatal([{ row: 0, field: "file", message: "The file is not valid JSON" }]);
+    data = JSON.parse(text);
+  } catch (error) {
+    const at = jsonErrorAt(text, error);
+    const where =
+      at === null
+        ? ""
+        : at.atEnd
+          ? `: it ends early, at line ${at.line}, column ${at.column} (is the file complete?)`
+          : ` at line ${at.line}, column ${at.column}`;
+    return fatal([{ row: 0, field: "file", message: `The file is not valid JSON${where}` }]);
   }
   if (!isRecord(data) || data.type !== "FeatureCollection" || !Array.isArray(data.features))
     return fatal([
@@ -250,6 +327,20 @@ function rowsFromGeoJson(content: string): ReadRows {
   return read;
 }
 
+/** Bad bytes, each at its line and, in a CSV, under its column's name from the header. */
+function encodingErrorsOf(format: BenchmarkFileFormat, content: string): ImportRowError[] {
+  const text = content.replace(/^\uFEFF/, "");
+  if (format === "geojson") return textEncodingErrors(text);
+  const delimiter = delimiterOf(text);
+  const header = (text.split(/\r\n|\n|\r/, 1)[0] ?? "")
+    .split(delimiter)
+    .map((h) => h.trim().toLowerCase());
+  return textEncodingErrors(text, (line, index) => {
+    const column = line.slice(0, index).split(delimiter).length - 1;
+    return header[column] || "row";
+  });
+}
+
 const codeKey = (code: string) => code.toLowerCase();
 
 /** Every row checked; any problem means no benchmarks, only the errors in file order. */
@@ -257,6 +348,9 @@ export function readBenchmarkFile(
   format: BenchmarkFileFormat,
   content: string,
 ): BenchmarkFileResult {
+  const broken = encodingErrorsOf(format, content);
+  if (broken.length > 0)
+    return { ok: false, errors: broken.slice(0, keptImportErrors), errorCount: broken.length };
   const read = format === "csv" ? rowsFromCsv(content) : rowsFromGeoJson(content);
   if (read.fatal) return { ok: false, errors: read.errors, errorCount: read.errors.length };
   const errors = [...read.errors];

@@ -139,6 +139,8 @@ export function createSeriesParser(options: SeriesParserOptions): SeriesParser {
   let rows = 0;
   let badRows = 0;
   let validRows = 0;
+  // A UTF-16 file: its first line says so, the others are counted but not listed.
+  let utf16 = false;
 
   function bad(line: number, field: string, message: string): null {
     badRows++;
@@ -200,6 +202,32 @@ export function createSeriesParser(options: SeriesParserOptions): SeriesParser {
 
   return {
     line(text, lineNo) {
+      // Bytes that were not UTF-8 reach here as U+FFFD (a UTF-16 file brings NULs as well).
+      if (utf16) {
+        badRows++;
+        return null;
+      }
+      // A UTF-16 byte-order mark, FF FE or FE FF, decodes as two U+FFFD before anything else.
+      if (text.includes("\u0000") || (columns === null && text.startsWith("\uFFFD\uFFFD"))) {
+        utf16 = true;
+        return bad(lineNo, "file", "the file is UTF-16 text (or not text): save it as UTF-8");
+      }
+      const broken = text.indexOf("\uFFFD");
+      if (broken >= 0) {
+        const at = sep === null ? -1 : split(text.slice(0, broken).trimStart(), sep).length - 1;
+        const field =
+          columns === null
+            ? "text"
+            : at === columns.time
+              ? columns.names.time
+              : at === columns.value
+                ? columns.names.value
+                : at === columns.valid
+                  ? columns.names.valid
+                  : "text";
+        const message = `not valid UTF-8 text at character ${broken + 1}: save the file as UTF-8`;
+        return bad(lineNo, field, message);
+      }
       const trimmed = text.trim();
       if (trimmed === "" || trimmed.startsWith("#")) return null;
       sep ??= separatorOf(trimmed);

@@ -14,6 +14,7 @@ import { CHUNK_SAMPLES } from "../../server/services/comparison/chunk-writer";
 import { uploadSeries } from "../../server/services/comparison/upload";
 import { createTestContext, signInAs, type TestContext } from "../helpers/app";
 import { pullAll } from "../helpers/sync";
+import { createComparisonRun } from "../helpers/comparison-run";
 
 let ctx: TestContext;
 let base: string;
@@ -39,35 +40,7 @@ afterAll(async () => {
   await ctx.close();
 });
 
-async function makeRun(): Promise<string> {
-  const clock = async (name: string) => {
-    const id = crypto.randomUUID();
-    const res = await request(ctx.app)
-      .post(`${base}/instruments`)
-      .set(auth())
-      .send({ id, instrument: { kind: "clock", name, instabilityAt1s: 1e-15, systematic: [] } });
-    expect(res.status).toBe(201);
-    return id;
-  };
-  const [remote, reference] = [await clock(`U ${crypto.randomUUID()}`), await clock("U ref")];
-  const id = crypto.randomUUID();
-  const res = await request(ctx.app)
-    .post(`${base}/comparison-runs`)
-    .set(auth())
-    .send({
-      id,
-      run: {
-        name: `Upload ${id.slice(0, 4)}`,
-        remoteSiteId: siteId,
-        remoteClockId: remote,
-        referenceClockId: reference,
-        linkName: "fibre link",
-        targetHeightUncertaintyM: 0.01,
-      },
-    });
-  expect(res.status, JSON.stringify(res.body)).toBe(201);
-  return id;
-}
+const makeRun = () => createComparisonRun(ctx.app, base, token, siteId, "Upload");
 
 const upload = (runId: string, text: string, fileName: string) =>
   request(ctx.app)

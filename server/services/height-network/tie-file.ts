@@ -2,6 +2,7 @@
 // optional sigma_mm (header any case, comma or semicolon). Every bad row is kept with its line
 // (the header is line 1), the column and zod's message; one bad row and the file is refused.
 import Papa from "papaparse";
+import { textEncodingErrors } from "../../../shared/benchmark-import";
 import { heightTieFields } from "../../../shared/schemas/height-network";
 
 export interface TieRowError {
@@ -107,12 +108,23 @@ function delimiterOf(text: string): "," | ";" {
 
 /** Semicolon files often write decimals with a comma; a comma-separated file cannot. */
 export function readTieFile(content: string): TieFileResult {
+  // A UTF-8 byte-order mark (spreadsheets write one) is dropped; bytes not UTF-8 are refused.
   const text = content.replace(/^\uFEFF/, "");
-  const parsed = Papa.parse<string[]>(text, {
-    delimiter: delimiterOf(text),
-    skipEmptyLines: false,
+  const delimiter = delimiterOf(text);
+  const names = (text.split(/\r?\n/, 1)[0] ?? "").split(delimiter).map((h) => h.trim());
+  const broken = textEncodingErrors(text, (line, index) => {
+    const name = names[line.slice(0, index).split(delimiter).length - 1]?.toLowerCase();
+    return name && (columns as readonly string[]).includes(name) ? name : "row";
   });
+  if (broken.length > 0)
+    return { ok: false, errors: broken.slice(0, keptTieErrors), errorCount: broken.length };
+  const parsed = Papa.parse<string[]>(text, { delimiter, skipEmptyLines: false });
   const rows = parsed.data;
+  // A quote opened and never closed swallows the rest of the file into one cell.
+  const unclosed = new Set(
+    parsed.errors.filter((e) => e.code === "MissingQuotes").map((e) => e.row ?? -1),
+  );
+  const cutShort = /[^\r\n]$/.test(text) ? rows.length - 1 : -1;
   const header = (rows[0] ?? []).map((h) => h.trim().toLowerCase());
   const decimalComma = parsed.meta.delimiter === ";";
   const errors = headerErrors(header);
@@ -120,6 +132,16 @@ export function readTieFile(content: string): TieFileResult {
   rows.slice(1).forEach((cells, i) => {
     const line = i + 2;
     if (cells.every((c) => c.trim() === "")) return;
+    if (unclosed.has(i + 1)) {
+      const message = "A quoted value is not closed (is the file complete?)";
+      errors.push({ row: line, field: "row", message });
+      return;
+    }
+    if (i + 1 === cutShort && cells.length < header.length) {
+      const message = `The last line is cut short: ${cells.length} of ${header.length} columns (is the file complete?)`;
+      errors.push({ row: line, field: "row", message });
+      return;
+    }
     const read = readRow(cells, header, line, decimalComma);
     if (Array.isArray(read)) errors.push(...read);
     else ties.push(read);

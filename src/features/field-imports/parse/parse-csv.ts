@@ -103,6 +103,13 @@ function preflight(input: string, mapping: ColumnMapping): Body {
     };
   const text = input.replace(/^\uFEFF/, "");
   if (text.trim() === "") return { errors: [{ line: null, text: "The file is empty" }] };
+  // UTF-16 (its byte-order mark decodes as two U+FFFD, and every other byte is a NUL).
+  if (text.startsWith("\uFFFD\uFFFD") || text.includes("\u0000"))
+    return {
+      errors: [
+        { line: 1, text: "Line 1: the file is UTF-16 text (or not text); save it as UTF-8" },
+      ],
+    };
   const headerAt = startOfLine(text, mapping.headerLine);
   if (headerAt === null)
     return {
