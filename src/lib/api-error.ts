@@ -75,3 +75,21 @@ export function messageOf(error: unknown): string {
   if (error instanceof Error && error.message) return error.message;
   return "Something went wrong.";
 }
+
+/** A file upload answered 507: the server has no room for the bytes; the tablet keeps them. */
+export const serverStorageFullMessage =
+  "The server's storage for photos and files is full. Your photo or file is kept on this tablet " +
+  "and will be sent at a later sync, once the server has space again. Your other changes are sent.";
+
+/** A file upload answered 503: the server cannot store files right now; the tablet keeps them. */
+export const serverStorageUnavailableMessage =
+  "The server cannot store photos and files right now. Your photo or file is kept on this " +
+  "tablet and will be sent at a later sync. Your other changes are sent.";
+
+/** The crew's words for a file upload the server could not store for now, or null. */
+export function fileStorageMessageOf(error: unknown): string | null {
+  if (!(error instanceof ApiError)) return null;
+  if (error.status === 507 || error.code === "storage_full") return serverStorageFullMessage;
+  if (error.status === 503) return serverStorageUnavailableMessage;
+  return null;
+}

@@ -1,6 +1,6 @@
 // The sync engine: plain TypeScript, no React. One instance per signed-in user and device.
 // A run uploads waiting files, pushes the outbox in order, in batches, then pulls every campaign's
-// changes until caught up.
+// changes until caught up. A file the server cannot store now fails the run only after that.
 import { defaultPullPage, protocolVersion } from "../../shared/sync/protocol";
 import type { EquipotDb, OutboxEntry } from "../db/database";
 import { cursorKey, ensureClientId, readMeta, writeMeta } from "../db/meta";
@@ -143,13 +143,17 @@ export function createSyncEngine(options: SyncEngineOptions) {
     try {
       const clientId = await ensureClientId(db);
       // Bytes first, so that colleagues who pull a link can usually fetch its file at once.
-      if (transport.files) await uploadFiles(db, transport.files, setStatus);
+      // A file the server cannot store now waits; the changes still go, then the run reports it.
+      const fileProblem = transport.files
+        ? await uploadFiles(db, transport.files, setStatus)
+        : null;
       await pushAll(clientId);
       let pulled = 0;
       for (const campaignId of options.campaignIds())
         pulled += await pullCampaign(clientId, campaignId);
       await writeMeta(db, lastSuccessKey, new Date().toISOString());
       emit({ type: "synced", pulled });
+      if (fileProblem) throw fileProblem;
     } catch (error) {
       const known =
         error instanceof SyncError

@@ -1,7 +1,7 @@
 // The sync transport over the app's API client; failures become SyncErrors in the crew's words.
 import type { z } from "zod";
 import { protocolVersion, pullResponse, pushResponse } from "../../shared/sync/protocol";
-import { ApiError } from "../lib/api-error";
+import { ApiError, fileStorageMessageOf } from "../lib/api-error";
 import { SyncError, type FileTransport, type SyncTransport } from "./transport";
 
 type Request = <S extends z.ZodType>(
@@ -40,6 +40,9 @@ const refusedForGood = new Set([403, 413, 415]);
 function explainFile(error: unknown): SyncError {
   if (error instanceof ApiError && refusedForGood.has(error.status))
     return new SyncError(error.message, "refused");
+  // The server's storage is full or out of reach: say so, the bytes wait on the tablet.
+  const storage = fileStorageMessageOf(error);
+  if (storage !== null) return new SyncError(storage, "server");
   if (error instanceof ApiError && error.status === 400)
     return new SyncError(`A file was not accepted this time: ${error.message}`, "server");
   return explain(error);

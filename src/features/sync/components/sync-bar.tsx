@@ -60,7 +60,8 @@ function Progress({ progress }: { progress: SyncStatus["progress"] }) {
   );
 }
 
-function Problem({ status }: { status: SyncStatus }) {
+/** The alert under the bar: the last failure in plain words, and changes that waited too long. */
+export function Problem({ status }: { status: SyncStatus }) {
   const old = isOldPending(status);
   if (status.error === null && !old) return null;
   const offline = status.error?.kind === "offline";
