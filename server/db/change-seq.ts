@@ -30,3 +30,16 @@ export async function takeChangeSeqs(
   if (!row) throw new Error(`campaign ${campaignId} not found for a change position`);
   return row.seq - count + 1;
 }
+
+/**
+ * Takes the campaign's counter lock now, before any row of the campaign is locked: every writer
+ * then locks in the same order (counter, then rows), so two writers of one campaign queue instead
+ * of deadlocking. A campaign that is missing or out of scope locks nothing.
+ */
+export async function lockChangeStream(q: Queryable, campaignId: string): Promise<void> {
+  await q
+    .select({ id: campaigns.id })
+    .from(campaigns)
+    .where(eq(campaigns.id, campaignId))
+    .for("update");
+}

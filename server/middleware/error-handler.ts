@@ -63,8 +63,19 @@ function sqlState(err: unknown): string | undefined {
  */
 export const rowSecurityRefused = (err: unknown) => sqlState(err) === "42501";
 
+/** A deadlock or serialisation failure rolled the transaction back whole: it may simply be sent again. */
+const mayRetry = (err: unknown) => ["40P01", "40001"].includes(sqlState(err) ?? "");
+
 function fromDatabase(err: unknown): HttpError | undefined {
   if (rowSecurityRefused(err)) return notFound("Not found");
+  if (mayRetry(err))
+    return new HttpError(
+      503,
+      "unavailable",
+      "The server was busy with another change to this campaign; nothing was saved, try again",
+      undefined,
+      { "Retry-After": "1" },
+    );
   if (!lostConnection(err)) return undefined;
   return new HttpError(
     503,
@@ -84,6 +95,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (!known) req.log?.error({ err }, "unhandled error");
   else if (rowSecurityRefused(err))
     req.log?.error({ err }, "row-level security refused a statement");
+  else if (mayRetry(err)) req.log?.warn({ err }, "transaction rolled back, may be retried");
   else if (known.status === 503) req.log?.warn({ err }, "database unreachable");
   const error = known ?? new HttpError(500, "internal", "Something went wrong on the server");
   for (const [name, value] of Object.entries(error.headers ?? {})) res.setHeader(name, value);

@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
 import type { SiteCreateInput, SiteUpdateInput, SiteView } from "../../shared/schemas/sites";
 import type { Db } from "../db/client";
-import { nextChangeSeq } from "../db/change-seq";
+import { lockChangeStream, nextChangeSeq } from "../db/change-seq";
 import { nextRevision, tombstoneRevision, type Scope } from "./revision";
 import { recordAudit } from "../db/repositories/audit";
 import {
@@ -50,6 +50,7 @@ export async function editSite(
   input: SiteUpdateInput,
 ): Promise<SiteView> {
   return db.transaction(async (tx) => {
+    await lockChangeStream(tx, scope.campaignId);
     const current = await findSiteForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Site not found");
     if (current.version !== input.baseVersion) {
@@ -77,6 +78,7 @@ export async function editSite(
 
 export async function deleteSite(db: Db, scope: Scope, id: string): Promise<void> {
   await db.transaction(async (tx) => {
+    await lockChangeStream(tx, scope.campaignId);
     const current = await findSiteForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Site not found");
     await updateSite(tx, id, await tombstoneRevision(tx, scope, current));

@@ -9,6 +9,7 @@ import {
   type PushRequest,
   type PushResponse,
 } from "../../../shared/sync/protocol";
+import { lockChangeStream } from "../../db/change-seq";
 import type { Db } from "../../db/client";
 import { storableJson } from "../../db/storable";
 import { advanceSyncClient, lockSyncClient, recordRejections } from "../../db/repositories/sync";
@@ -114,6 +115,9 @@ export async function push(
     }
     // The role is read inside the transaction: a member removed a moment ago is refused now.
     const membership = await findMembership(tx, userId, request.campaignId);
+    // Counter first, rows after, as every writer of the campaign does (no lock-order deadlock).
+    if (membership && request.mutations.some((m) => m.mutationId > last))
+      await lockChangeStream(tx, request.campaignId);
     const ctx = {
       tx,
       campaignId: request.campaignId,
