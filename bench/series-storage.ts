@@ -19,6 +19,7 @@ import { fileURLToPath, pathToFileURL } from "node:url";
 import { sql } from "drizzle-orm";
 import { from as copyFrom } from "pg-copy-streams";
 import { connect, type Database } from "../server/db/client";
+import { withScope } from "../server/db/scope";
 import { instruments, sites } from "../server/db/schema";
 import { createRun } from "../server/services/comparison/runs";
 import { uploadSeries } from "../server/services/comparison/upload";
@@ -157,12 +158,16 @@ async function uploadChild(args: { url: string; csv: string; ids: RunIds }): Pro
       peakHeap = Math.max(peakHeap, process.memoryUsage().heapUsed);
     }, 10);
     const t0 = performance.now();
-    const outcome = await uploadSeries(
-      database.db,
-      { campaignId: args.ids.campaignId, userId: args.ids.userId },
-      args.ids.runId,
-      { fileName: "bench.csv", valueKind: "fractional" },
-      createReadStream(args.csv),
+    // As a request would: the application's role, scoped to the campaign.
+    const scope = { user: args.ids.userId, campaigns: [args.ids.campaignId] };
+    const outcome = await withScope(scope, () =>
+      uploadSeries(
+        database.db,
+        { campaignId: args.ids.campaignId, userId: args.ids.userId },
+        args.ids.runId,
+        { fileName: "bench.csv", valueKind: "fractional" },
+        createReadStream(args.csv),
+      ),
     );
     const ms = performance.now() - t0;
     clearInterval(sampler);
@@ -251,7 +256,7 @@ async function measureSize(
   try {
     for (let r = 0; r < rounds; r++) {
       const fresh = await postgres.fresh();
-      const database = connect(fresh.url, 2);
+      const database = connect(fresh.ownerUrl, 2);
       try {
         const ids = await newRun(database);
         const up = await runUploadChild(fresh.url, files.csv, ids);

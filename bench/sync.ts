@@ -181,7 +181,7 @@ function memoryRows(
 async function pullRows(postgres: BenchPostgres): Promise<SyncRow[]> {
   const database = await postgres.fresh();
   try {
-    const ids = await seedPullCampaigns(database.url, [WIDE_PULL, SMALL_PULL, PULLED]);
+    const ids = await seedPullCampaigns(database.ownerUrl, [WIDE_PULL, SMALL_PULL, PULLED]);
     const server = await startBenchServer(database.url);
     try {
       const session = await signIn(server.url, fieldEmail);

@@ -3,8 +3,10 @@
 // (.equipot/pg-bench-client): the other benchmarks' cluster is stopped by whichever starts next, so
 // sharing it would let a benchmark run beside this one pull the database away mid-run. Nothing here
 // times the database, so fsync is off.
+import { randomBytes } from "node:crypto";
 import pg from "pg";
 import { startCluster, stopCluster } from "../../scripts/lib/postgres";
+import { ensureAppRole, urlAs } from "../../server/db/app-role";
 import { applyMigrations, connect } from "../../server/db/client";
 import { startServer } from "../../server/index";
 import { seedDemo } from "../../server/seed/demo";
@@ -19,6 +21,7 @@ export interface ClientServer {
 
 const dataDir = ".equipot/pg-bench-client";
 const databaseName = "equipot_bench_client";
+const appRole = "equipot_bench_app";
 
 async function freshDatabase(adminUrl: string): Promise<void> {
   const client = new pg.Client({ connectionString: adminUrl });
@@ -38,12 +41,14 @@ export async function startClientServer(staticDir: string): Promise<ClientServer
   try {
     await freshDatabase(cluster.adminUrl("postgres"));
     const databaseUrl = cluster.adminUrl(databaseName);
-    await applyMigrations(databaseUrl);
+    const password = randomBytes(18).toString("base64url");
+    await ensureAppRole(cluster.adminUrl("postgres"), appRole, password);
+    await applyMigrations(databaseUrl, appRole);
     const seeded = connect(databaseUrl, 1);
     await seedDemo(seeded.db, "test").finally(() => seeded.close());
     const running = await startServer(
       testConfig({
-        DATABASE_URL: databaseUrl,
+        DATABASE_URL: urlAs(databaseUrl, appRole, password),
         STATIC_DIR: staticDir,
         DEMO: "true",
         // Long enough that no token refresh falls inside a measured reload.

@@ -4,13 +4,19 @@ import { randomBytes } from "node:crypto";
 import { createServer } from "node:net";
 import pg from "pg";
 import { startCluster, stopCluster, type Cluster } from "../../scripts/lib/postgres";
+import { ensureAppRole, urlAs } from "../../server/db/app-role";
 import { applyMigrations, connect } from "../../server/db/client";
 import { seedDemo } from "../../server/seed/demo";
 
 const template = "equipot_bench_template";
+const appRole = "equipot_bench_app";
+const appPassword = randomBytes(18).toString("base64url");
 
 export interface BenchDatabase {
+  /** As the application's role, under row-level security: what a server connects with. */
   url: string;
+  /** As the owner (a superuser here): for seeding and checks. */
+  ownerUrl: string;
   drop: () => Promise<void>;
 }
 
@@ -64,7 +70,8 @@ export async function startBenchPostgres(): Promise<BenchPostgres> {
     await admin(cluster, `drop database if exists ${template} with (force)`);
     await admin(cluster, `create database ${template}`);
     const url = cluster.adminUrl(template);
-    await applyMigrations(url);
+    await ensureAppRole(cluster.adminUrl("postgres"), appRole, appPassword);
+    await applyMigrations(url, appRole);
     const seeded = connect(url, 1);
     await seedDemo(seeded.db, "test").finally(() => seeded.close());
   } catch (error) {
@@ -75,8 +82,10 @@ export async function startBenchPostgres(): Promise<BenchPostgres> {
     async fresh() {
       const name = `equipot_bench_${randomBytes(6).toString("hex")}`;
       await admin(cluster, `create database ${name} template ${template}`);
+      const ownerUrl = withDatabase(cluster.adminUrl("postgres"), name);
       return {
-        url: withDatabase(cluster.adminUrl("postgres"), name),
+        url: urlAs(ownerUrl, appRole, appPassword),
+        ownerUrl,
         drop: () => admin(cluster, `drop database if exists ${name} with (force)`),
       };
     },

@@ -120,7 +120,7 @@ export async function pushRound(
     const t0 = performance.now();
     await engine.sync();
     const ms = performance.now() - t0;
-    await checkPushed(db, database.url, queued, n);
+    await checkPushed(db, database.ownerUrl, queued, n);
     return { ms, ...timing };
   } finally {
     db.close();
@@ -148,7 +148,7 @@ export async function baselineRound(
   audit: boolean,
 ): Promise<number> {
   const database = await postgres.fresh();
-  const client = new pg.Client({ connectionString: database.url });
+  const client = new pg.Client({ connectionString: database.ownerUrl });
   await client.connect();
   try {
     const user = await client.query<{ id: string }>("select id from users where email = $1", [
@@ -190,7 +190,7 @@ export async function baselineRound(
       await client.query("commit");
     }
     const ms = performance.now() - t0;
-    const onServer = await countSites(database.url, queued.campaignId);
+    const onServer = await countSites(database.ownerUrl, queued.campaignId);
     if (onServer !== rows.length + 3) throw new Error(`baseline wrote ${onServer - 3} sites`);
     return ms;
   } finally {
