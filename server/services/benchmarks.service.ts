@@ -7,7 +7,7 @@ import type {
   benchmarkUpdateInput,
   BenchmarkView,
 } from "../../shared/schemas/benchmarks";
-import { nextChangeSeq } from "../db/change-seq";
+import { lockChangeStream, nextChangeSeq } from "../db/change-seq";
 import type { Db, Tx } from "../db/client";
 import { recordAudit } from "../db/repositories/audit";
 import {
@@ -91,6 +91,7 @@ export async function editBenchmark(
   input: UpdateInput,
 ): Promise<BenchmarkView> {
   return db.transaction(async (tx) => {
+    await lockChangeStream(tx, scope.campaignId);
     const current = await findBenchmarkForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Benchmark not found");
     if (current.version !== input.baseVersion) {
@@ -120,6 +121,7 @@ export async function editBenchmark(
 /** A tombstone: runs and ties that named the benchmark keep their record of it. */
 export async function deleteBenchmark(db: Db, scope: Scope, id: string): Promise<void> {
   await db.transaction(async (tx) => {
+    await lockChangeStream(tx, scope.campaignId);
     const current = await findBenchmarkForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Benchmark not found");
     const row = await updateBenchmark(

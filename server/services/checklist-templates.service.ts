@@ -6,7 +6,7 @@ import type {
   checklistTemplateUpdateInput,
 } from "../../shared/schemas/checklist-templates";
 import type { ChecklistTemplateView } from "../../shared/schemas/checklists";
-import { nextChangeSeq } from "../db/change-seq";
+import { lockChangeStream, nextChangeSeq } from "../db/change-seq";
 import { nextRevision, tombstoneRevision, type Scope } from "./revision";
 import type { Db } from "../db/client";
 import { recordAudit } from "../db/repositories/audit";
@@ -58,6 +58,7 @@ export async function editTemplate(
   input: UpdateFields,
 ): Promise<ChecklistTemplateView> {
   return db.transaction(async (tx) => {
+    await lockChangeStream(tx, scope.campaignId);
     const current = await findTemplateForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Checklist template not found");
     if (current.version !== input.baseVersion) {
@@ -86,6 +87,7 @@ export async function editTemplate(
 /** A tombstone with a new change position, so tablets stop offering the template. */
 export async function deleteTemplate(db: Db, scope: Scope, id: string): Promise<void> {
   await db.transaction(async (tx) => {
+    await lockChangeStream(tx, scope.campaignId);
     const current = await findTemplateForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Checklist template not found");
     const row = await updateTemplate(

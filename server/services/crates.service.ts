@@ -3,7 +3,7 @@
 import type { z } from "zod";
 import type { CrateView } from "../../shared/schemas/crates";
 import type { crateCreateInput, crateUpdateInput } from "../../shared/schemas/logistics";
-import { nextChangeSeq } from "../db/change-seq";
+import { lockChangeStream, nextChangeSeq } from "../db/change-seq";
 import { nextRevision, tombstoneRevision, type Scope } from "./revision";
 import type { Db } from "../db/client";
 import { recordAudit } from "../db/repositories/audit";
@@ -45,6 +45,7 @@ export async function editCrate(
   input: UpdateInput,
 ): Promise<CrateView> {
   return db.transaction(async (tx) => {
+    await lockChangeStream(tx, scope.campaignId);
     const current = await findCrateForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Crate not found");
     if (current.version !== input.baseVersion) {
@@ -72,6 +73,7 @@ export async function editCrate(
 /** A tombstone: legs, handovers and entries that name the crate keep pointing at it. */
 export async function deleteCrate(db: Db, scope: Scope, id: string): Promise<void> {
   await db.transaction(async (tx) => {
+    await lockChangeStream(tx, scope.campaignId);
     const current = await findCrateForUpdate(tx, scope.campaignId, id);
     if (!current || current.deletedAt) throw notFound("Crate not found");
     const row = await updateCrate(

@@ -4,7 +4,7 @@ import request from "supertest";
 import type { Express } from "express";
 import type { Role } from "../../shared/permissions";
 import { createApp } from "../../server/app";
-import { connect } from "../../server/db/client";
+import { connect, type Db } from "../../server/db/client";
 import { createSciencePool, type SciencePool } from "../../server/workers/science-pool";
 import { memberships, users } from "../../server/db/schema";
 import { hashPassword } from "../../server/services/passwords";
@@ -16,6 +16,8 @@ import { createTestDatabase, type TestDatabase } from "./db";
 
 export interface TestContext {
   app: Express;
+  /** The app's own handle (the application's role, under row-level security), for workers. */
+  appDb: Db;
   config: Config;
   database: TestDatabase;
   mailQueued: { count: number };
@@ -45,7 +47,7 @@ export async function createTestContext(
     await appDatabase.close();
     await database.drop();
   };
-  return { app, config, database, mailQueued, science, close };
+  return { app, appDb: appDatabase.db, config, database, mailQueued, science, close };
 }
 
 export const withHeader = (test: request.Test) => test.set(requestHeader.name, requestHeader.value);

@@ -144,7 +144,7 @@ describe("alert e-mails and an SMTP server that is down or hangs up", () => {
     const { port, url } = catcher;
     await catcher.close(); // connection refused from now on
     const clock = simulatedClock();
-    const worker = createMailWorker(ctx.database.db, url, from, silent, noTimerMs, {
+    const worker = createMailWorker(ctx.appDb, url, from, silent, noTimerMs, {
       now: clock.now,
     });
     try {
@@ -276,7 +276,7 @@ describe("alert e-mails and an SMTP server that is down or hangs up", () => {
       },
     });
     const clock = simulatedClock();
-    const worker = createMailWorker(ctx.database.db, smtp.url, from, silent, noTimerMs, {
+    const worker = createMailWorker(ctx.appDb, smtp.url, from, silent, noTimerMs, {
       now: clock.now,
     });
     try {

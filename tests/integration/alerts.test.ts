@@ -40,7 +40,7 @@ beforeAll(async () => {
   mailFolder = mkdtempSync(join(tmpdir(), "equipot-alert-mail-"));
   catcher = await startMailCatcher({ folder: mailFolder });
   worker = createMailWorker(
-    ctx.database.db,
+    ctx.appDb,
     catcher.url,
     "Equipot <no-reply@equipot.test>",
     silent,
@@ -232,7 +232,7 @@ describe("alerts for entries beyond a crate's limits", () => {
     const folder = mkdtempSync(join(tmpdir(), "equipot-alert-down-"));
     let down = await startMailCatcher({ folder });
     const { port } = down;
-    const flaky = createMailWorker(ctx.database.db, down.url, "x@equipot.test", silent, 60_000);
+    const flaky = createMailWorker(ctx.appDb, down.url, "x@equipot.test", silent, 60_000);
     try {
       await down.close();
       const args = tripped();

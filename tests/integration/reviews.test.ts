@@ -355,9 +355,9 @@ describe("the weekly summary", () => {
       .send({ weekly: true });
     expect(turnOn.body).toEqual({ weekly: true });
     const monday = new Date("2027-06-07T06:00:00Z");
-    expect(await queueWeeklySummaries(ctx.database.db, monday, "http://equipot.test")).toBe(1);
+    expect(await queueWeeklySummaries(ctx.appDb, monday, "http://equipot.test")).toBe(1);
     const friday = new Date("2027-06-11T06:00:00Z");
-    expect(await queueWeeklySummaries(ctx.database.db, friday, "http://equipot.test")).toBe(0);
+    expect(await queueWeeklySummaries(ctx.appDb, friday, "http://equipot.test")).toBe(0);
     const [mail] = await sql<{ to_address: string; text_body: string }>(
       "select to_address, text_body from email_outbox where message_key like 'review-summary:%'",
     );
@@ -365,12 +365,12 @@ describe("the weekly summary", () => {
     expect(mail?.text_body).toMatch(/Records waiting for review in ".+": \d+/);
     expect(mail?.text_body).toMatch(/Approved\s+\d+/);
     const nextWeek = new Date("2027-06-14T06:00:00Z");
-    expect(await queueWeeklySummaries(ctx.database.db, nextWeek, "http://equipot.test")).toBe(1);
+    expect(await queueWeeklySummaries(ctx.appDb, nextWeek, "http://equipot.test")).toBe(1);
     await request(ctx.app)
       .put(`/api/campaigns/${campaignId}/reviews/summary`)
       .set("Authorization", `Bearer ${reviewerToken}`)
       .send({ weekly: false });
     const later = new Date("2027-06-21T06:00:00Z");
-    expect(await queueWeeklySummaries(ctx.database.db, later, "http://equipot.test")).toBe(0);
+    expect(await queueWeeklySummaries(ctx.appDb, later, "http://equipot.test")).toBe(0);
   });
 });
