@@ -21,24 +21,30 @@ CREATE FUNCTION equipot_scope_ids() RETURNS uuid[] LANGUAGE sql STABLE AS $$
   END
 $$;
 --> statement-breakpoint
--- The person's campaigns. Its own SET shows it every membership row, so the memberships policy
--- can use it without recursing (the policy's first arm is then true).
-CREATE FUNCTION equipot_member_campaigns() RETURNS uuid[] LANGUAGE sql STABLE
+-- The person's campaigns, for the memberships table's own policies (a sub-select of memberships
+-- there would recurse). Its SET shows it every membership row; plpgsql keeps its plan.
+CREATE FUNCTION equipot_member_campaigns() RETURNS uuid[] LANGUAGE plpgsql STABLE
 SET equipot.campaigns = 'all' AS $$
-  SELECT coalesce(array_agg(campaign_id), '{}') FROM memberships WHERE user_id = equipot_user()
-$$;
+BEGIN
+  RETURN (SELECT coalesce(array_agg(campaign_id), '{}') FROM memberships WHERE user_id = equipot_user());
+END $$;
 --> statement-breakpoint
 DO $$
 DECLARE
   -- @col is the table's campaign column. The scalar sub-selects run once per statement (init
-  -- plans), not once per row.
-  member constant text := '@col = ANY ((SELECT equipot_member_campaigns())::uuid[])';
-  allows constant text := '(SELECT equipot_scope_is(''all'')) OR (@col = ANY ((SELECT equipot_scope_ids())::uuid[]) AND ' || member || ')';
+  -- plans), not once per row; an OR's later arms run only when the earlier ones are false.
+  system constant text := '(SELECT equipot_scope_is(''all''))';
+  listed constant text := '@col = ANY ((SELECT equipot_scope_ids())::uuid[])';
+  member constant text := '@col IN (SELECT m.campaign_id FROM memberships m WHERE m.user_id = (SELECT equipot_user()))';
+  allows constant text := system || ' OR (' || listed || ' AND ' || member || ')';
   by_campaign constant text := replace(allows, '@col', 'campaign_id');
+  -- Memberships: one's own rows first, so the sub-select above never needs the function.
+  member_self constant text := system || ' OR (' || replace(listed, '@col', 'campaign_id')
+    || ' AND campaign_id = ANY ((SELECT equipot_member_campaigns())::uuid[]))';
   t text;
 BEGIN
   FOREACH t IN ARRAY ARRAY[
-    'memberships', 'invites', 'sites', 'conflicts', 'attachments', 'attachment_links',
+    'invites', 'sites', 'conflicts', 'attachments', 'attachment_links',
     'checklist_templates', 'checklist_runs', 'checklist_results', 'crates', 'benchmarks',
     'field_entries', 'levelling_sections', 'levelling_setups', 'legs', 'handovers', 'alerts',
     'instruments', 'height_ties', 'levelling_adjustments', 'comparison_runs', 'comparison_files',
@@ -47,7 +53,10 @@ BEGIN
     EXECUTE format('CREATE POLICY campaign_scope ON %I USING (%s) WITH CHECK (%s)', t, by_campaign, by_campaign);
   END LOOP;
   -- One's own memberships and campaigns are readable outside any campaign (sign-in, the list).
-  EXECUTE 'CREATE POLICY own_memberships ON memberships FOR SELECT USING (user_id = (SELECT equipot_user()))';
+  EXECUTE format('CREATE POLICY campaign_scope_read ON memberships FOR SELECT USING (user_id = (SELECT equipot_user()) OR %s)', member_self);
+  EXECUTE format('CREATE POLICY campaign_scope_add ON memberships FOR INSERT WITH CHECK (%s)', member_self);
+  EXECUTE format('CREATE POLICY campaign_scope_change ON memberships FOR UPDATE USING (%s) WITH CHECK (%s)', member_self, member_self);
+  EXECUTE format('CREATE POLICY campaign_scope_remove ON memberships FOR DELETE USING (%s)', member_self);
   EXECUTE format('CREATE POLICY campaign_scope ON campaigns USING (%s) WITH CHECK (%s)', replace(allows, '@col', 'id'), replace(allows, '@col', 'id'));
   EXECUTE format('CREATE POLICY own_campaigns ON campaigns FOR SELECT USING (%s)', replace(member, '@col', 'id'));
   -- Sign-in and system events have no campaign.

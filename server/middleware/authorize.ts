@@ -3,7 +3,7 @@ import type { Request, RequestHandler } from "express";
 import { z } from "zod";
 import { can, type Action, type Role } from "../../shared/permissions";
 import type { Db } from "../db/client";
-import { inScope } from "../db/scope";
+import { inScope, withScope } from "../db/scope";
 import { findMembership } from "../db/repositories/users";
 import { forbidden, notFound } from "../http-errors";
 import { requireAuth } from "./authenticate";
@@ -15,11 +15,15 @@ export function campaignMember(db: Db): RequestHandler & { readonly campaignScop
   const member: RequestHandler = async (req, _res, next) => {
     const { userId } = requireAuth(req);
     const parsed = campaignIdParam.safeParse(req.params.campaignId);
-    const membership = parsed.success ? await findMembership(db, userId, parsed.data) : undefined;
-    if (!parsed.success || !membership) throw notFound("Campaign not found");
+    if (!parsed.success) throw notFound("Campaign not found");
+    // Row-level security: this campaign only, from the check to the response. The check runs in
+    // the same scope as the handler, so a pooled connection needs its setting changed only when
+    // the person or campaign changes; one's own membership row is readable in it.
+    const scope = { user: userId, campaigns: [parsed.data] };
+    const membership = await withScope(scope, () => findMembership(db, userId, parsed.data));
+    if (!membership) throw notFound("Campaign not found");
     req.membership = { campaignId: parsed.data, role: membership.role };
-    // Row-level security: this campaign only, from here to the response.
-    inScope({ user: userId, campaigns: [parsed.data] }, next);
+    inScope(scope, next);
   };
   return Object.assign(member, { campaignScope: true as const });
 }
