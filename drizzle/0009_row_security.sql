@@ -61,10 +61,13 @@ BEGIN
   EXECUTE format('CREATE POLICY own_campaigns ON campaigns FOR SELECT USING (%s)', replace(member, '@col', 'id'));
   -- Sign-in and system events have no campaign.
   EXECUTE format('CREATE POLICY campaign_scope ON audit_events USING (campaign_id IS NULL OR %s) WITH CHECK (campaign_id IS NULL OR %s)', by_campaign, by_campaign);
+  -- A device's refused mutations belong to the person who sent them (a member removed since
+  -- still gets their own back for recovery).
+  EXECUTE format('CREATE POLICY own_refusals ON sync_rejections USING (%s OR user_id = (SELECT equipot_user())) WITH CHECK (%s OR user_id = (SELECT equipot_user()))', system, system);
   -- The samples belong to a file; the file's policy decides.
   EXECUTE 'CREATE POLICY campaign_scope ON comparison_chunks USING (EXISTS (SELECT 1 FROM comparison_files f WHERE f.id = file_id)) WITH CHECK (EXISTS (SELECT 1 FROM comparison_files f WHERE f.id = file_id))';
   FOREACH t IN ARRAY ARRAY[
-    'campaigns', 'memberships', 'audit_events', 'comparison_chunks',
+    'campaigns', 'memberships', 'audit_events', 'comparison_chunks', 'sync_rejections',
     'invites', 'sites', 'conflicts', 'attachments', 'attachment_links', 'checklist_templates',
     'checklist_runs', 'checklist_results', 'crates', 'benchmarks', 'field_entries',
     'levelling_sections', 'levelling_setups', 'legs', 'handovers', 'alerts', 'instruments',
