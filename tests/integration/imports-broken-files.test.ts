@@ -51,6 +51,33 @@ const countOf = async (table: typeof benchmarks | typeof heightTies) =>
     await ctx.database.db.select({ n: count() }).from(table).where(eq(table.campaignId, campaignId))
   )[0]?.n ?? -1;
 
+type Refusal = { row: number; field: string; message: string };
+
+/** A file import sent as JSON to `path`, and the check that it was refused whole. */
+function fileImport(
+  path: string,
+  fields: Record<string, string>,
+  table: typeof benchmarks | typeof heightTies,
+) {
+  const send = (content: Buffer) =>
+    request(ctx.app)
+      .post(`${base}/${path}`)
+      .set(auth())
+      .set("Content-Type", "application/json")
+      .serialize(asIs)
+      .send(jsonBody(fields, content));
+  /** 422 with the rows at fault, and nothing added to the table. */
+  async function refusedWhole(content: Buffer): Promise<{ rows: Refusal[]; message: string }> {
+    const before = await countOf(table);
+    const res = await send(content);
+    expect(res.status, JSON.stringify(res.body)).toBe(422);
+    expect(res.body.error.code).toBe("invalid_file");
+    expect(await countOf(table)).toBe(before);
+    return { rows: res.body.error.rows as Refusal[], message: res.body.error.message as string };
+  }
+  return { send, refusedWhole };
+}
+
 beforeAll(async () => {
   ctx = await createTestContext();
   const g = await signInAs(ctx.app, "geodesist");
@@ -70,22 +97,15 @@ describe("benchmark CSV", () => {
     "code,description,latitude_deg,longitude_deg,height_m,height_sigma_mm,height_system";
   const good = (code: string) =>
     `${header}\n${code}-1,Hut door,46.1,9.2,2410.5,3,DHHN2016\n${code}-2,Col,46.2,9.3,2411,3,DHHN2016\n`;
-  const send = (content: Buffer) =>
-    request(ctx.app)
-      .post(`${base}/benchmarks/import`)
-      .set(auth())
-      .set("Content-Type", "application/json")
-      .serialize(asIs)
-      .send(jsonBody({ format: "csv", fileName: "marks.csv" }, content));
-
+  const { send, refusedWhole } = fileImport(
+    "benchmarks/import",
+    { format: "csv", fileName: "marks.csv" },
+    benchmarks,
+  );
   async function refused(content: Buffer) {
-    const before = await countOf(benchmarks);
-    const res = await send(content);
-    expect(res.status, JSON.stringify(res.body)).toBe(422);
-    expect(res.body.error.code).toBe("invalid_file");
-    expect(res.body.error.message).toMatch(/in marks\.csv; nothing was imported$/);
-    expect(await countOf(benchmarks)).toBe(before);
-    return res.body.error.rows as { row: number; field: string; message: string }[];
+    const { rows, message } = await refusedWhole(content);
+    expect(message).toMatch(/in marks\.csv; nothing was imported$/);
+    return rows;
   }
 
   it("refuses a lone 0xFF and a Latin-1 é at their line and column", async () => {
@@ -145,22 +165,8 @@ describe("benchmark GeoJSON", () => {
     `{"type":"Feature","geometry":{"type":"Point","coordinates":[9.2,46.1]},"properties":{"code":"${code}","height_m":2410.5,"height_sigma_mm":3,"height_system":"DHHN2016"}}`;
   const collection = (...features: string[]) =>
     `{"type":"FeatureCollection",\n"features":[\n${features.join(",\n")}\n]}\n`;
-  const send = (content: Buffer) =>
-    request(ctx.app)
-      .post(`${base}/benchmarks/import`)
-      .set(auth())
-      .set("Content-Type", "application/json")
-      .serialize(asIs)
-      .send(jsonBody({ format: "geojson" }, content));
-
-  async function refused(content: Buffer) {
-    const before = await countOf(benchmarks);
-    const res = await send(content);
-    expect(res.status, JSON.stringify(res.body)).toBe(422);
-    expect(res.body.error.code).toBe("invalid_file");
-    expect(await countOf(benchmarks)).toBe(before);
-    return res.body.error.rows as { row: number; field: string; message: string }[];
-  }
+  const { send, refusedWhole } = fileImport("benchmarks/import", { format: "geojson" }, benchmarks);
+  const refused = async (content: Buffer) => (await refusedWhole(content)).rows;
 
   it("refuses bytes that are not UTF-8 and UTF-16, naming the line", async () => {
     const text = collection(feature("GJ-1"), feature("GJ-@2"));
@@ -204,22 +210,12 @@ describe("benchmark GeoJSON", () => {
 describe("height ties", () => {
   const good =
     "from,to,dh_m,length_km,sigma_mm\nKR-01,KR-02,1.2345,2.1,0.8\nKR-02,KR-03,0.5,1.0,0.5\n";
-  const send = (content: Buffer) =>
-    request(ctx.app)
-      .post(`${base}/height-ties/import`)
-      .set(auth())
-      .set("Content-Type", "application/json")
-      .serialize(asIs)
-      .send(jsonBody({ fileName: "ties.csv" }, content));
-
-  async function refused(content: Buffer) {
-    const before = await countOf(heightTies);
-    const res = await send(content);
-    expect(res.status, JSON.stringify(res.body)).toBe(422);
-    expect(res.body.error.code).toBe("invalid_file");
-    expect(await countOf(heightTies)).toBe(before);
-    return res.body.error.rows as { row: number; field: string; message: string }[];
-  }
+  const { send, refusedWhole } = fileImport(
+    "height-ties/import",
+    { fileName: "ties.csv" },
+    heightTies,
+  );
+  const refused = async (content: Buffer) => (await refusedWhole(content)).rows;
 
   it("refuses a lone 0xFF and a Latin-1 é at their line and column", async () => {
     const text = good.replace("KR-03", "KR@-03");
