@@ -2,6 +2,18 @@
 import type { Express } from "express";
 import request from "supertest";
 import { expect } from "vitest";
+import { signInAs, type TestContext } from "./app";
+import { pullAll } from "./sync";
+
+/** A geodesist of the demo campaign, its API base and one of its sites (as a tablet pulled it). */
+export async function geodesistWithSite(ctx: TestContext) {
+  const { token, memberships } = await signInAs(ctx.app, "geodesist");
+  const campaignId = memberships[0]?.campaignId ?? "";
+  const field = (await signInAs(ctx.app, "field")).token;
+  const { changes } = await pullAll(ctx.app, field, campaignId);
+  const siteId = changes.find((c) => c.entity === "site")?.id ?? "";
+  return { token, campaignId, base: `/api/campaigns/${campaignId}`, siteId };
+}
 
 export async function createComparisonRun(
   app: Express,

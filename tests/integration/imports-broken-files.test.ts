@@ -13,9 +13,8 @@ import { count, eq } from "drizzle-orm";
 import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { benchmarks, comparisonChunks, comparisonFiles, heightTies } from "../../server/db/schema";
-import { createTestContext, signInAs, type TestContext } from "../helpers/app";
-import { pullAll } from "../helpers/sync";
-import { createComparisonRun } from "../helpers/comparison-run";
+import { createTestContext, type TestContext } from "../helpers/app";
+import { createComparisonRun, geodesistWithSite } from "../helpers/comparison-run";
 
 let ctx: TestContext;
 let token: string;
@@ -80,13 +79,7 @@ function fileImport(
 
 beforeAll(async () => {
   ctx = await createTestContext();
-  const g = await signInAs(ctx.app, "geodesist");
-  token = g.token;
-  campaignId = g.memberships[0]?.campaignId ?? "";
-  base = `/api/campaigns/${campaignId}`;
-  const field = (await signInAs(ctx.app, "field")).token;
-  const { changes } = await pullAll(ctx.app, field, campaignId);
-  siteId = changes.find((c) => c.entity === "site")?.id ?? "";
+  ({ token, campaignId, base, siteId } = await geodesistWithSite(ctx));
 });
 afterAll(async () => {
   await ctx.close();

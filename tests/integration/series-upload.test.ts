@@ -12,9 +12,8 @@ import { createSeriesReader, type SeriesFileSummary } from "../../shared/compari
 import { comparisonChunks, comparisonFiles } from "../../server/db/schema";
 import { CHUNK_SAMPLES } from "../../server/services/comparison/chunk-writer";
 import { uploadSeries } from "../../server/services/comparison/upload";
-import { createTestContext, signInAs, type TestContext } from "../helpers/app";
-import { pullAll } from "../helpers/sync";
-import { createComparisonRun } from "../helpers/comparison-run";
+import { createTestContext, type TestContext } from "../helpers/app";
+import { createComparisonRun, geodesistWithSite } from "../helpers/comparison-run";
 
 let ctx: TestContext;
 let base: string;
@@ -28,13 +27,7 @@ const iso = (t: number) => new Date(t * 1000).toISOString().replace(".000Z", "Z"
 
 beforeAll(async () => {
   ctx = await createTestContext();
-  const g = await signInAs(ctx.app, "geodesist");
-  token = g.token;
-  campaignId = g.memberships[0]?.campaignId ?? "";
-  base = `/api/campaigns/${campaignId}`;
-  const field = (await signInAs(ctx.app, "field")).token;
-  const { changes } = await pullAll(ctx.app, field, campaignId);
-  siteId = changes.find((c) => c.entity === "site")?.id ?? "";
+  ({ token, campaignId, base, siteId } = await geodesistWithSite(ctx));
 });
 afterAll(async () => {
   await ctx.close();

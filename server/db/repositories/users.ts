@@ -44,12 +44,3 @@ export async function findMembership(q: Queryable, userId: string, campaignId: s
     : await membershipQuery(q, userId, campaignId);
   return rows[0];
 }
-
-/** The campaigns the person is a member of (their own memberships are readable in any scope). */
-export async function memberCampaignIds(q: Queryable, userId: string): Promise<string[]> {
-  const rows = await q
-    .select({ campaignId: memberships.campaignId })
-    .from(memberships)
-    .where(eq(memberships.userId, userId));
-  return rows.map((r) => r.campaignId);
-}

@@ -1,7 +1,6 @@
 import { Router } from "express";
 import { pullQuery, pushRequest } from "../../../shared/sync/protocol";
 import type { Db } from "../../db/client";
-import { memberCampaignIds } from "../../db/repositories/users";
 import { withScope } from "../../db/scope";
 import { requireAuth } from "../../middleware/authenticate";
 import { parseInput } from "../../middleware/validate";
@@ -23,9 +22,8 @@ export function syncRouter(
   router.post("/push", async (req, res) => {
     const input = parseInput(pushRequest, req.body);
     const { userId } = requireAuth(req);
-    // A push spans the person's campaigns; membership is still checked per mutation.
-    const campaigns = await memberCampaignIds(db, userId);
-    const response = await withScope({ user: userId, campaigns }, () =>
+    // A push is for one campaign: the same scope as that campaign's pull.
+    const response = await withScope({ user: userId, campaigns: [input.campaignId] }, () =>
       push(db, userId, input, linkBase),
     );
     afterPush();
